@@ -1,0 +1,75 @@
+"""``build``: config → plan → every output file, written into place all at once."""
+
+from __future__ import annotations
+
+import importlib
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+from generators.config import Config, load_config
+from generators.errors import UserError
+from generators.output import atomic_folder
+from generators.plan.hub import build_plan
+from generators.plan.model import HubPlan
+from generators.report.manifest import plan_record, write_manifest
+
+# Each writer is "module:function", called with the BuildContext in this order. A
+# writer adds files to ctx.folder, sections to ctx.manifest and lines to ctx.summary.
+WRITERS: tuple[str, ...] = (
+    "generators.cad.writer:write_hub",
+)
+
+
+@dataclass
+class BuildContext:
+    config: Config
+    plan: HubPlan
+    folder: Path
+    config_path: Path | None = None
+    options: dict[str, Any] = field(default_factory=dict)
+    manifest: dict[str, Any] = field(default_factory=dict)
+    summary: list[str] = field(default_factory=list)
+    volume_mm3: float | None = None
+
+
+@dataclass
+class BuildResult:
+    name: str
+    folder: Path
+    manifest: dict[str, Any]
+    summary: list[str]
+
+
+def output_folder(cfg: Config, out: str | Path | None) -> Path:
+    """``out/<name>`` by default; the name is validated to stay inside the folder."""
+    base = Path(out) if out is not None else Path("out")
+    target = (base / cfg.name)
+    if target.resolve().parent != base.resolve():
+        raise UserError("name", f"{cfg.name!r} would write outside {base}", "a plain folder name")
+    return target
+
+
+def _call(spec: str, ctx: BuildContext) -> None:
+    module, func = spec.split(":")
+    getattr(importlib.import_module(module), func)(ctx)
+
+
+def build(config_path: str | Path, out: str | Path | None = None, **options: Any) -> BuildResult:
+    """Build everything for one config; nothing is written unless all of it succeeds."""
+    cfg = load_config(config_path)
+    return build_config(cfg, out, config_path=Path(config_path), **options)
+
+
+def build_config(cfg: Config, out: str | Path | None = None, config_path: Path | None = None,
+                 **options: Any) -> BuildResult:
+    plan = build_plan(cfg)
+    target = output_folder(cfg, out)
+    with atomic_folder(target) as tmp:
+        ctx = BuildContext(config=cfg, plan=plan, folder=tmp, config_path=config_path, options=options)
+        for spec in WRITERS:
+            _call(spec, ctx)
+        record = plan_record(plan, ctx.volume_mm3)
+        record.update(ctx.manifest)
+        manifest = write_manifest(tmp, record)
+    return BuildResult(name=cfg.name, folder=target, manifest=manifest, summary=ctx.summary)

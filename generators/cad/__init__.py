@@ -1,0 +1,1 @@
+"""Solids from the plan. The only layer that imports cadquery."""

@@ -1,0 +1,116 @@
+"""Read a TOML config and turn every problem into one ``UserError`` line."""
+
+from __future__ import annotations
+
+import tomllib
+from pathlib import Path
+from typing import Any
+
+from pydantic import BaseModel, ValidationError
+
+from generators.config.models import Config
+from generators.errors import UserError, did_you_mean
+
+
+def load_config(path: str | Path) -> Config:
+    """Load and validate a config file."""
+    path = Path(path)
+    if path.is_dir():
+        raise UserError(str(path), "is a folder, not a config file", "a .toml file")
+    try:
+        raw = path.read_bytes()
+    except FileNotFoundError:
+        raise UserError(str(path), "no such config file") from None
+    except OSError as exc:
+        raise UserError(str(path), f"cannot read the config ({exc.strerror})") from None
+    try:
+        text = raw.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        line = raw[: exc.start].count(b"\n") + 1
+        raise UserError(f"{path.name}:{line}", "the file is not UTF-8 text",
+                        "save the config as UTF-8") from None
+    try:
+        data = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise UserError(path.name, f"not valid TOML: {exc}", "see https://toml.io") from None
+    return parse_config(data)
+
+
+def parse_config(data: dict[str, Any]) -> Config:
+    """Validate already-parsed TOML data."""
+    units = data.get("units", "mm")
+    if units not in ("mm", "in"):
+        raise UserError("units", f"{units!r} is not a unit system", '"mm" or "in"')
+    try:
+        return Config.model_validate(data, context={"units": units})
+    except ValidationError as exc:
+        raise _user_error(exc) from None
+
+
+def _key(loc: tuple) -> str:
+    text = ""
+    for part in loc:
+        if isinstance(part, int):
+            text += f"[{part}]"
+        else:
+            text += ("." if text else "") + str(part)
+    return text
+
+
+def _model_at(loc: tuple) -> type[BaseModel] | None:
+    """The model class that owns the last element of ``loc``."""
+    model: Any = Config
+    for part in loc[:-1]:
+        if isinstance(part, int):
+            continue
+        field = model.model_fields.get(part)
+        if field is None:
+            return None
+        model = _model_in(field.annotation)
+        if model is None:
+            return None
+    return model
+
+
+def _model_in(annotation) -> type[BaseModel] | None:
+    if isinstance(annotation, type) and issubclass(annotation, BaseModel):
+        return annotation
+    for arg in getattr(annotation, "__args__", ()) or ():
+        found = _model_in(arg)
+        if found is not None:
+            return found
+    return None
+
+
+def _user_error(exc: ValidationError) -> UserError:
+    err = exc.errors(include_url=False)[0]
+    loc = tuple(p for p in err["loc"] if not (isinstance(p, str) and ("[" in p or p.startswith("function-"))))
+    kind = err["type"]
+    msg = err["msg"]
+    if msg.startswith("Value error, "):
+        msg = msg[len("Value error, "):]
+    if kind == "extra_forbidden":
+        owner = _model_at(loc)
+        choices = list(owner.model_fields) if owner else []
+        hint = did_you_mean(str(loc[-1]), choices)
+        accepted = "known keys: " + ", ".join(choices) if choices else None
+        return UserError(_key(loc), "unknown key" + (f"; {hint}" if hint else ""), accepted)
+    if kind == "missing":
+        return UserError(_key(loc), "is required")
+    if kind == "value_error" and ": " in msg and msg.split(": ", 1)[0].isidentifier():
+        # a model-level check names its own field first: "field: problem (accepted)"
+        field, msg = msg.split(": ", 1)
+        loc = loc + (field,)
+    accepted = None
+    if kind == "literal_error":
+        accepted = msg.replace("Input should be ", "")
+        msg = f"{err.get('input')!r} is not accepted"
+    elif kind in ("greater_than", "greater_than_equal", "less_than", "less_than_equal"):
+        accepted = msg.replace("Input should be ", "must be ")
+        value = err.get("input")
+        msg = f"{value!r} is out of range"
+        if isinstance(value, str):
+            msg = f"{value!r} is out of range (in mm or degrees)"
+    elif msg.endswith(")") and " (" in msg:
+        msg, accepted = msg[:-1].split(" (", 1)
+    return UserError(_key(loc), msg, accepted)

@@ -1,0 +1,244 @@
+"""Frozen config models, one per TOML section. Lengths in mm, angles in degrees.
+
+Defaults that are shop rules rather than standards are marked common practice.
+"""
+
+from __future__ import annotations
+
+from typing import Annotated, Literal
+
+from pydantic import BaseModel, BeforeValidator, ConfigDict, Field, ValidationInfo, field_validator, model_validator
+
+from generators.config.fields import Angle, Length, Speed, _units, _wrap
+from generators.errors import UserError
+from generators.units import length_mm
+
+
+class Section(BaseModel):
+    model_config = ConfigDict(frozen=True, extra="forbid", arbitrary_types_allowed=True)
+
+
+def _thread(value, info: ValidationInfo):
+    from generators.standards.threads import Thread, parse_thread
+
+    if isinstance(value, Thread):
+        return value
+    if not isinstance(value, str):
+        raise UserError("", f"expected a thread designation string, got {value!r}",
+                        'e.g. "1/4-20", "#10-24", "M6", "M8x1"')
+    return parse_thread(value, key=info.field_name or "thread")
+
+
+def _mast(value, info: ValidationInfo):
+    from generators.standards.pipes import MastSize, resolve_mast
+
+    if isinstance(value, MastSize):
+        return value
+    return resolve_mast(value, key=info.field_name or "size", units=_units(info))
+
+
+def _material(value, info: ValidationInfo):
+    from generators.standards.materials import get_material
+
+    if not isinstance(value, str):
+        raise UserError("", f"expected a material id, got {value!r}")
+    return get_material(value, key=info.field_name or "material").id
+
+
+ThreadSpec = Annotated[object, BeforeValidator(_wrap(_thread))]
+MastSpec = Annotated[object, BeforeValidator(_wrap(_mast))]
+MaterialId = Annotated[str, BeforeValidator(_wrap(_material))]
+PositiveLength = Annotated[Length, Field(gt=0)]
+
+# Diametral clearance of the bore around the mast when none is given: 1.0 mm, enough to
+# slide over a painted or slightly out-of-round tube (common practice).
+DEFAULT_MAST_CLEARANCE_MM = 1.0
+# Diametral fit of a spreader pole in its socket: 0.5 mm (common practice for
+# fiberglass poles, whose OD varies a few tenths along the pole).
+DEFAULT_SPREADER_FIT_MM = 0.5
+
+
+class Mast(Section):
+    size: MastSpec
+    clearance: Annotated[Length, Field(ge=0, le=25)] = DEFAULT_MAST_CLEARANCE_MM
+
+
+class Hub(Section):
+    style: Literal["block", "puck"] = "block"
+    sides: Annotated[int, Field(ge=3, le=48)] | None = None
+    across_flats: PositiveLength | None = None
+    diameter: PositiveLength | None = None
+    thickness: PositiveLength
+    bore: PositiveLength | None = None
+    corner_chamfer: Annotated[Length, Field(ge=0)] = 0.0
+    material: MaterialId = "hdpe"
+    process: Literal["machined", "printed"] = "machined"
+    max_mass: Annotated[float, Field(gt=0)] | None = None  # grams; a limit the user sets
+
+    @model_validator(mode="after")
+    def _size_given(self):
+        if self.style == "block" and self.across_flats is None:
+            raise ValueError("across_flats: a block hub needs across_flats (a length)")
+        if self.style == "puck" and self.diameter is None:
+            raise ValueError("diameter: a puck hub needs diameter (a length)")
+        if self.style == "block" and self.diameter is not None:
+            raise ValueError("diameter: only a puck has a diameter (a block uses across_flats)")
+        if self.style == "puck" and (self.across_flats is not None or self.sides is not None):
+            raise ValueError("across_flats: a puck has no flats (use diameter, or style = \"block\")")
+        return self
+
+
+class Spreaders(Section):
+    count: Annotated[int, Field(ge=3, le=12)]
+    diameter: PositiveLength
+    fit: Annotated[Length, Field(ge=0, le=10)] = DEFAULT_SPREADER_FIT_MM
+    elevation: Annotated[Angle, Field(ge=0, le=45)] = 0.0
+    first_azimuth: Angle = 0.0
+    socket_depth: Literal["to-bore"] | float = "to-bore"
+    tip_radius: PositiveLength | None = None
+    tip_spacing: PositiveLength | None = None
+    tip_allowance: Annotated[Length, Field(ge=0)] | None = None
+    wall: PositiveLength | None = None
+    inner_diameter: PositiveLength | None = None
+
+    @field_validator("socket_depth", mode="before")
+    @classmethod
+    def _depth(cls, value, info: ValidationInfo):
+        if value == "to-bore":
+            return value
+        if isinstance(value, str) and not any(c.isdigit() for c in value):
+            raise ValueError(f"{value!r} is not accepted ('to-bore' or a length from the outer face)")
+        mm = _wrap(lambda v, i: length_mm(v, "", _units(i)))(value, info)
+        if mm <= 0:
+            raise ValueError(f"{value!r} is not accepted ('to-bore' or a positive length from the outer face)")
+        return mm
+
+    @model_validator(mode="after")
+    def _tips(self):
+        if self.tip_radius is not None and self.tip_spacing is not None:
+            raise ValueError("tip_spacing: give tip_radius or tip_spacing, not both")
+        if self.wall is not None and self.inner_diameter is not None:
+            raise ValueError("inner_diameter: give wall or inner_diameter, not both")
+        return self
+
+
+class SetScrews(Section):
+    thread: ThreadSpec
+    per_spreader: Literal[0, 1, 2] = 1
+    face: Literal["top", "bottom"] = "top"
+    position: PositiveLength | None = None
+    length: PositiveLength | None = None
+
+
+class MastClamp(Section):
+    thread: ThreadSpec
+    count: Annotated[int, Field(ge=1, le=12)] = 1
+
+
+class ExtraHole(Section):
+    id: Annotated[str, Field(min_length=1, max_length=24, pattern=r"^[A-Za-z0-9_.-]+$")]
+    face: Literal["top", "bottom"] = "top"
+    at: tuple[Length, Length]
+    thread: ThreadSpec | None = None
+    clearance: ThreadSpec | None = None
+    fit: Literal["close", "normal", "loose"] = "normal"
+    diameter: PositiveLength | None = None
+    depth: PositiveLength | None = None
+    through: bool | None = None
+    countersink: bool = False
+    counterbore: bool = False
+
+    @model_validator(mode="after")
+    def _one_kind(self):
+        given = [k for k in ("thread", "clearance", "diameter") if getattr(self, k) is not None]
+        if len(given) != 1:
+            raise ValueError("thread: give exactly one of thread, clearance or diameter"
+                             f" (got {', '.join(given) or 'none'})")
+        if self.countersink and self.counterbore:
+            raise ValueError("counterbore: a hole takes a countersink or a counterbore, not both")
+        if (self.countersink or self.counterbore) and self.thread is not None:
+            raise ValueError("countersink: a countersink or counterbore goes on a clearance hole,"
+                             " not a tapped one (use clearance = \"...\")")
+        if self.depth is not None and self.through:
+            raise ValueError("depth: give depth or through = true, not both")
+        return self
+
+
+class Shop(Section):
+    drills: tuple[Literal["fractional", "number", "letter", "metric"], ...] | None = None
+
+
+class Output(Section):
+    tolerance: Annotated[Length, Field(ge=0.005, le=1.0)] = 0.05
+    angular_tolerance: Annotated[Angle, Field(ge=1, le=30)] = 10.0
+    paper: Literal["letter", "a4"] | None = None
+
+
+class Loads(Section):
+    wind_speed: Annotated[Speed, Field(gt=0, le=120)] = 40.0
+    drag_coefficient: Annotated[float, Field(gt=0, le=3)] = 1.2
+    air_density: Annotated[float, Field(gt=0, le=2)] = 1.225
+    wire_diameter: Annotated[Length, Field(ge=0)] = 0.0
+    wire_length_per_spreader: Annotated[Length, Field(ge=0)] = 0.0
+    spreader_material: MaterialId = "fiberglass"
+
+
+class Reducer(Section):
+    mast: MastSpec
+    flange: bool = False
+    slit: bool = False
+    key: bool = False
+
+
+class Print(Section):
+    hole_compensation: Annotated[Length, Field(ge=0, le=2)] = 0.3
+    line_width: Annotated[Length, Field(gt=0, le=2)] = 0.45
+    insert_hole: PositiveLength | None = None
+    insert_depth: PositiveLength | None = None
+    nut_allowance: Annotated[Length, Field(ge=0, le=2)] = 0.3
+
+
+class TipCap(Section):
+    tip_diameter: PositiveLength
+    fit: Annotated[Length, Field(ge=0, le=5)] = 0.4
+    depth: PositiveLength = 25.0
+    cord_diameter: PositiveLength = 3.0
+
+
+class Config(Section):
+    """A whole hubwright config; every length in mm, every angle in degrees."""
+
+    name: Annotated[str, Field(min_length=1, max_length=64)]
+    units: Literal["mm", "in"] = "mm"
+    description: str = ""
+    mast: Mast
+    hub: Hub
+    spreaders: Spreaders
+    set_screws: SetScrews | None = None
+    mast_clamp: MastClamp | None = None
+    holes: tuple[ExtraHole, ...] = ()
+    shop: Shop = Shop()
+    output: Output = Output()
+    loads: Loads = Loads()
+    reducers: tuple[Reducer, ...] = ()
+    print: Print = Print()
+    tip_cap: TipCap | None = None
+
+    @field_validator("name")
+    @classmethod
+    def _safe_name(cls, value: str) -> str:
+        import re
+
+        if not re.fullmatch(r"[A-Za-z0-9][A-Za-z0-9_.-]*", value) or ".." in value:
+            raise ValueError(f"{value!r} cannot name an output folder"
+                             " (letters, digits, '-', '_' and '.', starting with a letter or digit)")
+        return value
+
+    @model_validator(mode="after")
+    def _unique_hole_ids(self):
+        seen = set()
+        for hole in self.holes:
+            if hole.id in seen:
+                raise ValueError(f"holes: hole id {hole.id!r} is used twice (each [[holes]] id must be unique)")
+            seen.add(hole.id)
+        return self

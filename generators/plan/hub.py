@@ -1,0 +1,428 @@
+"""Config → HubPlan: the body and every hole of the hub, and the refusals.
+
+Each socket axis lies in the vertical plane through the mast axis at its azimuth,
+rises outward at the elevation, and passes through mid-thickness halfway along its
+horizontal run, so a tilted socket stays centred in the body.
+"""
+
+from __future__ import annotations
+
+import math
+
+from generators.config.models import Config
+from generators.errors import UserError
+from generators.plan import limits as L
+from generators.plan.geometry import edge_distance, polar, segment_distance
+from generators.plan.model import Body, Counterbore, Countersink, Face, Hole, HubPlan, Spreader
+from generators.plan.holes import clearance_drill, drill_name_for, material_class, tap_hole
+from generators.units import format_length
+
+PUCK_OUTLINE_SEGMENTS = 180
+
+
+def build_plan(cfg: Config) -> HubPlan:
+    """The complete hub plan, or a ``UserError`` naming what cannot be built."""
+    return _Planner(cfg).plan()
+
+
+class _Planner:
+    def __init__(self, cfg: Config):
+        self.cfg = cfg
+        self.units = cfg.units
+        self.T = cfg.hub.thickness
+        self.N = cfg.spreaders.count
+        self.notes: list[str] = []
+
+    def fmt(self, mm: float) -> str:
+        return format_length(mm, self.units, fractions=False)
+
+    # ---- body -------------------------------------------------------------------------
+    def plan(self) -> HubPlan:
+        cfg = self.cfg
+        self._check_sizes()
+        self.body = self._body()
+        self.mast_od = cfg.mast.size.od_mm
+        self.bore = cfg.hub.bore if cfg.hub.bore is not None else self.mast_od + cfg.mast.clearance
+        self.Rb = self.bore / 2
+        self._check_bore()
+        self.faces = self._faces()
+        holes = [Hole(id="bore", kind="bore", face="top", entry_mm=(0.0, 0.0, self.T),
+                      axis=(0.0, 0.0, -1.0), diameter_mm=self.bore, depth_mm=self.T, through=True,
+                      drill=drill_name_for(self.bore, self._series_for(None)),
+                      extend_mm=L.CUT_OVERRUN_MM)]
+        sockets, spreaders = self._sockets()
+        holes += sockets
+        holes += self._set_screws(sockets)
+        holes += self._clamps(sockets)
+        holes += self._extras(holes, sockets)
+        if cfg.hub.process == "printed":
+            self.notes.append("process = \"printed\": nut pockets, hole compensation and support-free"
+                              " profiles are not made yet; the hub is modelled as machined")
+        return HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material,
+                       process=cfg.hub.process, mast_designation=cfg.mast.size.designation,
+                       mast_od_mm=self.mast_od, bore_mm=self.bore, body=self.body,
+                       faces=tuple(self.faces), holes=tuple(holes), spreaders=tuple(spreaders),
+                       notes=tuple(self.notes))
+
+    def _check_sizes(self):
+        hub = self.cfg.hub
+        for key, v in (("hub.thickness", hub.thickness), ("hub.across_flats", hub.across_flats),
+                       ("hub.diameter", hub.diameter)):
+            if v is not None and not (L.MIN_BODY_MM <= v <= L.MAX_BODY_MM):
+                raise UserError(key, f"{self.fmt(v)} is outside what hubwright builds",
+                                f"{self.fmt(L.MIN_BODY_MM)} to {self.fmt(L.MAX_BODY_MM)}")
+
+    def _body(self) -> Body:
+        hub, sp = self.cfg.hub, self.cfg.spreaders
+        if hub.style == "puck":
+            R = hub.diameter / 2
+            outline = tuple((R * math.cos(2 * math.pi * k / PUCK_OUTLINE_SEGMENTS),
+                             R * math.sin(2 * math.pi * k / PUCK_OUTLINE_SEGMENTS))
+                            for k in range(PUCK_OUTLINE_SEGMENTS))
+            return Body(style="puck", thickness_mm=self.T, diameter_mm=hub.diameter,
+                        first_flat_azimuth_deg=sp.first_azimuth, outline=outline)
+        n = hub.sides or self.N
+        if n % self.N:
+            multiples = ", ".join(str(self.N * k) for k in (1, 2, 3))
+            raise UserError("hub.sides", f"{n} sides is not a multiple of spreaders.count = {self.N}",
+                            f"one flat faces each socket: {multiples}, ...")
+        a = hub.across_flats / 2
+        edge = 2 * a * math.tan(math.pi / n)
+        leg = hub.corner_chamfer / (2 * math.cos(math.pi / n))
+        if 2 * leg >= edge - 1e-6:
+            raise UserError("hub.corner_chamfer", f"{self.fmt(hub.corner_chamfer)} is wider than the"
+                            " flats allow", f"less than {self.fmt(edge * math.cos(math.pi / n))}")
+        Rc = a / math.cos(math.pi / n)
+        outline = []
+        for k in range(n):
+            corner = math.radians(sp.first_azimuth + (k + 0.5) * 360 / n)
+            cx, cy = Rc * math.cos(corner), Rc * math.sin(corner)
+            if leg <= 0:
+                outline.append((cx, cy))
+                continue
+            # edge directions from the corner towards the previous and the next corner
+            for sign in (-1, 1):
+                other = math.radians(sp.first_azimuth + (k + 0.5 + sign) * 360 / n)
+                ox, oy = Rc * math.cos(other), Rc * math.sin(other)
+                dx, dy = ox - cx, oy - cy
+                d = math.hypot(dx, dy)
+                outline.append((cx + dx / d * leg, cy + dy / d * leg))
+        return Body(style="block", thickness_mm=self.T, sides=n, across_flats_mm=hub.across_flats,
+                    corner_chamfer_mm=hub.corner_chamfer, first_flat_azimuth_deg=sp.first_azimuth,
+                    outline=tuple(outline))
+
+    def _check_bore(self):
+        if self.mast_od > self.bore + 1e-9:
+            raise UserError("hub.bore", f"the mast ({self.fmt(self.mast_od)} OD) is larger than the bore"
+                            f" ({self.fmt(self.bore)})", f"a bore of at least {self.fmt(self.mast_od)}")
+        r_in = self.body.outer_radius_mm
+        if self.body.style == "block" and self.body.corner_chamfer_mm > 0:
+            n = self.body.sides
+            r_in = min(r_in, self.body.corner_radius_mm
+                       - self.body.corner_chamfer_mm / (2 * math.cos(math.pi / n)) * math.sin(math.pi / n))
+        wall = r_in - self.Rb
+        if wall < L.MIN_BORE_WALL_MM:
+            size_key = "hub.diameter" if self.body.style == "puck" else "hub.across_flats"
+            raise UserError("hub.bore", f"the bore ({self.fmt(self.bore)}) leaves a wall of"
+                            f" {self.fmt(max(wall, 0))} to the outside",
+                            f"at least {self.fmt(L.MIN_BORE_WALL_MM)}: a smaller bore or a larger {size_key}")
+
+    # ---- faces ------------------------------------------------------------------------
+    def _faces(self) -> list[Face]:
+        T, body = self.T, self.body
+        top = Face(id="top", kind="top", origin=(0.0, 0.0, T), normal=(0.0, 0.0, 1.0),
+                   u_axis=(1.0, 0.0, 0.0), v_axis=(0.0, 1.0, 0.0), outline=body.outline,
+                   label="top face, seen from above")
+        bottom = Face(id="bottom", kind="bottom", origin=(0.0, 0.0, 0.0), normal=(0.0, 0.0, -1.0),
+                      u_axis=(1.0, 0.0, 0.0), v_axis=(0.0, -1.0, 0.0),
+                      outline=tuple((x, -y) for x, y in reversed(body.outline)),
+                      label="bottom face, seen from below")
+        faces = [top, bottom]
+        if body.style == "puck":
+            C = math.pi * body.diameter_mm
+            faces.append(Face(id="rim", kind="rim", origin=(0.0, 0.0, 0.0), normal=(1.0, 0.0, 0.0),
+                              u_axis=(0.0, 1.0, 0.0), v_axis=(0.0, 0.0, 1.0),
+                              outline=((0.0, 0.0), (C, 0.0), (C, T), (0.0, T)),
+                              label="rim, unrolled from azimuth 0 counter-clockwise seen from above"))
+            return faces
+        n, a = body.sides, body.outer_radius_mm
+        leg = body.corner_chamfer_mm / (2 * math.cos(math.pi / n))
+        flat_w = 2 * a * math.tan(math.pi / n) - 2 * leg
+        for k in range(n):
+            az = body.first_flat_azimuth_deg + k * 360 / n
+            faces.append(self._side_face(f"flat-{k + 1}", "flat", az, a, flat_w))
+        if body.corner_chamfer_mm > 0:
+            d_c = body.corner_radius_mm - leg * math.sin(math.pi / n)
+            for k in range(n):
+                az = body.first_flat_azimuth_deg + (k + 0.5) * 360 / n
+                faces.append(self._side_face(f"chamfer-{k + 1}", "chamfer", az, d_c, body.corner_chamfer_mm))
+        return faces
+
+    def _side_face(self, fid, kind, az, dist, width) -> Face:
+        t = math.radians(az)
+        n = (math.cos(t), math.sin(t), 0.0)
+        return Face(id=fid, kind=kind, origin=(dist * n[0], dist * n[1], 0.0), normal=n,
+                    u_axis=(-math.sin(t), math.cos(t), 0.0), v_axis=(0.0, 0.0, 1.0),
+                    outline=((-width / 2, 0.0), (width / 2, 0.0), (width / 2, self.T), (-width / 2, self.T)),
+                    azimuth_deg=az, label=f"{kind} face at {az % 360:.1f} deg, seen from outside, top edge up")
+
+    def _socket_face(self, az: float) -> Face:
+        if self.body.style == "puck":
+            return self.faces[2]
+        for f in self.faces:
+            if f.kind == "flat" and abs(((f.azimuth_deg - az + 180) % 360) - 180) < 1e-6:
+                return f
+        raise AssertionError("no flat faces the socket")
+
+    # ---- sockets ----------------------------------------------------------------------
+    def _sockets(self):
+        sp = self.cfg.spreaders
+        e = math.radians(sp.elevation)
+        r_s = (sp.diameter + sp.fit) / 2
+        r_o = self.body.outer_radius_mm
+        self.r_s = r_s
+        if sp.socket_depth == "to-bore":
+            r_i = self.Rb
+        else:
+            r_i = r_o - sp.socket_depth * math.cos(e)
+            if r_i < self.Rb + L.MIN_WEB_MM:
+                longest = (r_o - self.Rb - L.MIN_WEB_MM) / math.cos(e)
+                raise UserError("spreaders.socket_depth", f"{self.fmt(sp.socket_depth)} reaches the bore",
+                                f'"to-bore", or at most {self.fmt(max(longest, 0))} to leave a web')
+        # neighbouring sockets must not meet before they end (at the bore or their floor)
+        half = math.pi / self.N
+        web = 2 * r_i * math.sin(half) - 2 * r_s
+        if web < L.MIN_WEB_MM:
+            need = 2 * ((r_s + L.MIN_WEB_MM / 2) / math.sin(half))
+            what = "bore" if sp.socket_depth == "to-bore" else "socket floor circle"
+            raise UserError("spreaders.diameter", f"{self.N} sockets of {self.fmt(2 * r_s)} meet before the"
+                            f" {what} ({self.fmt(2 * r_i)} across): web {self.fmt(web)}",
+                            f"a {what} of at least {self.fmt(need)} (hub.bore), fewer or thinner spreaders")
+        rho_mid = (r_o + r_i) / 2
+        z = lambda rho: self.T / 2 + (rho - rho_mid) * math.tan(e)  # noqa: E731
+        top, bottom = z(r_o) + r_s / math.cos(e), z(r_i) - r_s / math.cos(e)
+        if top > self.T or bottom < 0:
+            raise UserError("spreaders.elevation", f"sockets tilted {sp.elevation:g} deg break out of the"
+                            f" {'top' if top > self.T else 'bottom'} face",
+                            "less elevation, a thicker hub (hub.thickness) or a shorter socket_depth")
+        if self.body.style == "block":
+            flat = self._socket_face(sp.first_azimuth)
+            half_w = flat.outline[1][0]
+            if r_s > half_w - L.MIN_EDGE_MM:
+                raise UserError("spreaders.diameter", f"the socket ({self.fmt(2 * r_s)}) is wider than its"
+                                f" flat ({self.fmt(2 * half_w)}) allows",
+                                "a larger hub.across_flats or fewer hub.sides")
+        depth = (r_o - r_i) / math.cos(e)
+        lead = L.CUT_OVERRUN_MM + r_s * math.tan(e)
+        if self.body.style == "puck":
+            lead += r_o - math.sqrt(max(r_o ** 2 - r_s ** 2, 0.0))
+        if sp.socket_depth == "to-bore":
+            rho_end = math.sqrt(self.Rb ** 2 - r_s ** 2) - r_s * math.sin(e) - 0.2
+            extend = (r_i - max(rho_end, 0.0)) / math.cos(e)
+            stop_r, stop = self._stop()
+        else:
+            extend, stop_r, stop = 0.0, r_i, "socket floor"
+        holes, spreaders = [], []
+        for i in range(self.N):
+            az = sp.first_azimuth + i * 360 / self.N
+            t = math.radians(az)
+            axis = (-math.cos(e) * math.cos(t), -math.cos(e) * math.sin(t), -math.sin(e))
+            entry = polar(r_o, az, z(r_o))
+            face = self._socket_face(az)
+            hole = Hole(id=f"S{i + 1}", kind="socket", face=face.id, entry_mm=entry, axis=axis,
+                        diameter_mm=2 * r_s, depth_mm=depth, extend_mm=extend, lead_mm=lead,
+                        drill=drill_name_for(2 * r_s, self._series_for(None)), spreader=i + 1,
+                        note=f"spreader {i + 1}")
+            holes.append(hole)
+            spreaders.append(Spreader(id=i + 1, azimuth_deg=az, elevation_deg=sp.elevation,
+                                      socket_hole=hole.id, diameter_mm=sp.diameter,
+                                      outward=(-axis[0], -axis[1], -axis[2]), mouth_mm=entry,
+                                      bottom_mm=hole.bottom_mm, stop_radius_mm=stop_r, stop=stop))
+        return holes, spreaders
+
+    def _stop(self) -> tuple[float, str]:
+        """What a pole in a to-bore socket butts against, as a horizontal radius."""
+        fitted = self.mast_od + self.cfg.mast.clearance
+        if self.cfg.reducers or self.bore > fitted + 1e-6:
+            return self.Rb, "sleeve in the bore"
+        return self.mast_od / 2, "mast"
+
+    # ---- tapped and drilled holes -----------------------------------------------------
+    def _series_for(self, thread):
+        from generators.standards.drills import default_series
+
+        if self.cfg.shop.drills:
+            return tuple(self.cfg.shop.drills)
+        if thread is not None:
+            return default_series(thread)
+        return ("fractional", "number", "letter") if self.units == "in" else ("metric",)
+
+    def _mat_class(self) -> str:
+        return material_class(self.cfg.hub.material)
+
+    def _edge_check(self, key: str, face: Face, p_face, radius: float, what: str):
+        need = max(L.EDGE_FACTOR * 2 * radius, L.MIN_EDGE_MM)
+        d = edge_distance(p_face, face.outline) - radius
+        if d < need:
+            raise UserError(key, f"{what} comes within {self.fmt(max(d, 0))} of the edge of the {face.id} face",
+                            f"at least {self.fmt(need)} (half the hole diameter, common practice)")
+
+    def _set_screws(self, sockets: list[Hole]) -> list[Hole]:
+        ss = self.cfg.set_screws
+        if ss is None or ss.per_spreader == 0:
+            return []
+        tap = tap_hole(ss.thread, self._mat_class(), self._series_for(ss.thread))
+        r_d = tap.drill.diameter_mm / 2
+        face = self.faces[0] if ss.face == "top" else self.faces[1]
+        holes = []
+        for sock in sockets:
+            depth = sock.depth_mm if self.cfg.spreaders.socket_depth != "to-bore" else \
+                (self.body.outer_radius_mm - self.Rb) / math.cos(math.radians(self.cfg.spreaders.elevation))
+            if ss.per_spreader == 1:
+                positions = [ss.position if ss.position is not None else depth / 2]
+            else:
+                first = ss.position if ss.position is not None else depth / 3
+                positions = [first, first + (depth - first) / 2]
+            for j, p in enumerate(positions):
+                hid = f"T{sock.spreader}" + ("" if ss.per_spreader == 1 else "ab"[j])
+                if not (r_d < p < depth - r_d):
+                    raise UserError("set_screws.position", f"{self.fmt(p)} is not along the socket",
+                                    f"between {self.fmt(2 * r_d)} and {self.fmt(depth - 2 * r_d)} from the outer face")
+                P = sock.point_at(p)
+                if ss.face == "top":
+                    entry, axis, d = (P[0], P[1], self.T), (0.0, 0.0, -1.0), self.T - P[2]
+                else:
+                    entry, axis, d = (P[0], P[1], 0.0), (0.0, 0.0, 1.0), P[2]
+                self._edge_check("set_screws.position", face, face.to_face(entry), r_d, f"set screw {hid}")
+                rho = math.hypot(P[0], P[1])
+                if rho - r_d < self.Rb + L.MIN_WEB_MM:
+                    raise UserError("set_screws.position", f"set screw {hid} would break into the bore",
+                                    "a position nearer the outer face")
+                self._clear_of_sockets("set_screws.thread", entry, axis, d, r_d, sockets, skip=sock.id,
+                                       what=f"set screw {hid}")
+                holes.append(Hole(id=hid, kind="set_screw", face=ss.face, entry_mm=entry, axis=axis,
+                                  diameter_mm=tap.drill.diameter_mm, depth_mm=d, drill=tap.drill.name,
+                                  thread=ss.thread.designation, thread_percent=tap.thread_percent,
+                                  spreader=sock.spreader, lead_mm=L.CUT_OVERRUN_MM,
+                                  note=f"set screw for spreader {sock.spreader}"))
+        return holes
+
+    def _clear_of_sockets(self, key, entry, axis, depth, radius, sockets, skip=None, what="hole"):
+        end = (entry[0] + axis[0] * depth, entry[1] + axis[1] * depth, entry[2] + axis[2] * depth)
+        for s in sockets:
+            if s.id == skip:
+                continue
+            gap = segment_distance(entry, end, s.entry_mm, s.bottom_mm) - radius - s.radius_mm
+            if gap < L.MIN_WEB_MM:
+                raise UserError(key, f"{what} would break into socket {s.id}"
+                                f" (web {self.fmt(max(gap, 0))})",
+                                f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
+
+    def _clamps(self, sockets: list[Hole]) -> list[Hole]:
+        mc = self.cfg.mast_clamp
+        if mc is None:
+            return []
+        if mc.count > self.N:
+            raise UserError("mast_clamp.count", f"{mc.count} clamp holes but only {self.N} gaps between sockets",
+                            f"1 to {self.N}")
+        tap = tap_hole(mc.thread, self._mat_class(), self._series_for(mc.thread))
+        r_c = tap.drill.diameter_mm / 2
+        gaps = [round(k * self.N / mc.count) for k in range(mc.count)]
+        first = self.cfg.spreaders.first_azimuth
+        holes = []
+        for k, g in enumerate(gaps):
+            az = first + (g + 0.5) * 360 / self.N
+            if self.body.style == "puck":
+                r_e, face_id = self.body.outer_radius_mm, "rim"
+                lead = L.CUT_OVERRUN_MM + r_e - math.sqrt(r_e ** 2 - r_c ** 2)
+            else:
+                face = self._face_at(az)
+                if face is None:
+                    need = self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)
+                    raise UserError("mast_clamp", "clamp holes sit between sockets, where this block has a"
+                                    " sharp corner", f"hub.sides = {2 * self.N} (a flat between sockets) or"
+                                    f" hub.corner_chamfer of at least {need}")
+                half_w = face.outline[1][0]
+                if half_w - r_c < L.MIN_EDGE_MM:
+                    raise UserError("hub.corner_chamfer" if face.kind == "chamfer" else "hub.across_flats",
+                                    f"the {face.id} face ({self.fmt(2 * half_w)} wide) is too narrow to"
+                                    f" drill the {tap.drill.name} clamp hole",
+                                    f"at least {self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)}")
+                r_e, face_id = math.hypot(face.origin[0], face.origin[1]), face.id
+                lead = L.CUT_OVERRUN_MM
+            t = math.radians(az)
+            entry = (r_e * math.cos(t), r_e * math.sin(t), self.T / 2)
+            axis = (-math.cos(t), -math.sin(t), 0.0)
+            depth = r_e - self.Rb
+            extend = self.Rb - (math.sqrt(self.Rb ** 2 - r_c ** 2) - 0.2)
+            hid = f"C{k + 1}"
+            self._clear_of_sockets("mast_clamp", entry, axis, depth, r_c, sockets, what=f"clamp hole {hid}")
+            holes.append(Hole(id=hid, kind="clamp", face=face_id, entry_mm=entry, axis=axis,
+                              diameter_mm=tap.drill.diameter_mm, depth_mm=depth, drill=tap.drill.name,
+                              thread=mc.thread.designation, thread_percent=tap.thread_percent,
+                              extend_mm=extend, lead_mm=lead, note="mast clamp screw"))
+        return holes
+
+    def _face_at(self, az: float) -> Face | None:
+        for f in self.faces:
+            if f.kind in ("flat", "chamfer") and abs(((f.azimuth_deg - az + 180) % 360) - 180) < 1e-6:
+                return f
+        return None
+
+    def _extras(self, existing: list[Hole], sockets: list[Hole]) -> list[Hole]:
+        from generators.standards.fasteners import clearance_hole, counterbore, countersink
+
+        taken = {h.id for h in existing}
+        out: list[Hole] = []
+        for i, spec in enumerate(self.cfg.holes):
+            key = f"holes[{i}]"
+            if spec.id in taken:
+                raise UserError(f"{key}.id", f"{spec.id!r} is already used by a generated hole",
+                                "ids other than " + ", ".join(sorted(taken)))
+            taken.add(spec.id)
+            cs = cb = None
+            if spec.thread is not None:
+                tap = tap_hole(spec.thread, self._mat_class(), self._series_for(spec.thread))
+                dia, drill, thread, pct = tap.drill.diameter_mm, tap.drill.name, spec.thread.designation, tap.thread_percent
+            elif spec.clearance is not None:
+                target = clearance_hole(spec.clearance, spec.fit, key=f"{key}.fit")
+                drill, dia = clearance_drill(target, self._series_for(spec.clearance))
+                thread, pct = None, None
+                if spec.countersink:
+                    c = countersink(spec.clearance)
+                    cs = Countersink(diameter_mm=c.head_diameter_mm, angle_deg=c.angle_deg)
+                if spec.counterbore:
+                    c = counterbore(spec.clearance)
+                    cb = Counterbore(diameter_mm=c.diameter_mm, depth_mm=c.depth_mm)
+            else:
+                dia = spec.diameter
+                drill = drill_name_for(dia, self._series_for(None))
+                thread, pct = None, None
+            through = spec.depth is None
+            depth = self.T if through else spec.depth
+            if depth > self.T:
+                raise UserError(f"{key}.depth", f"{self.fmt(depth)} is deeper than the hub",
+                                f"up to {self.fmt(self.T)}, or leave depth out for a through hole")
+            if spec.face == "top":
+                entry, axis, face = (spec.at[0], spec.at[1], self.T), (0.0, 0.0, -1.0), self.faces[0]
+            else:
+                entry, axis, face = (spec.at[0], spec.at[1], 0.0), (0.0, 0.0, 1.0), self.faces[1]
+            r_out = max(dia, cs.diameter_mm if cs else 0, cb.diameter_mm if cb else 0) / 2
+            self._edge_check(f"{key}.at", face, face.to_face(entry), r_out, f"hole {spec.id}")
+            if math.hypot(*spec.at) - r_out < self.Rb + L.MIN_WEB_MM:
+                raise UserError(f"{key}.at", f"hole {spec.id} would break into the bore",
+                                f"at least {self.fmt(self.Rb + L.MIN_WEB_MM + r_out)} from the mast axis")
+            self._clear_of_sockets(f"{key}.at", entry, axis, depth, dia / 2, sockets, what=f"hole {spec.id}")
+            end = (entry[0] + axis[0] * depth, entry[1] + axis[1] * depth, entry[2] + axis[2] * depth)
+            for other in existing + out:
+                if other.kind in ("bore", "socket"):
+                    continue
+                gap = segment_distance(entry, end, other.entry_mm, other.bottom_mm) - r_out - other.radius_mm
+                if gap < L.MIN_WEB_MM:
+                    raise UserError(f"{key}.at", f"hole {spec.id} runs into hole {other.id}",
+                                    f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
+            out.append(Hole(id=spec.id, kind="extra", face=spec.face, entry_mm=entry, axis=axis,
+                            diameter_mm=dia, depth_mm=depth, through=through, drill=drill, thread=thread,
+                            thread_percent=pct, countersink=cs, counterbore=cb,
+                            extend_mm=L.CUT_OVERRUN_MM if through else 0.0, lead_mm=L.CUT_OVERRUN_MM))
+        return out

@@ -1,0 +1,172 @@
+"""The plan: plain data describing the part. Every writer builds from this alone.
+
+Frame: origin on the mast axis at the bottom face, +Z up; azimuth from +X
+counter-clockwise seen from above. Millimetres and degrees.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import asdict, dataclass, field
+from typing import Any
+
+from generators.plan.geometry import Pt, Vec
+
+
+@dataclass(frozen=True)
+class Countersink:
+    diameter_mm: float
+    angle_deg: float
+
+
+@dataclass(frozen=True)
+class Counterbore:
+    diameter_mm: float
+    depth_mm: float
+
+
+@dataclass(frozen=True)
+class Hole:
+    """One drilled, bored or milled hole.
+
+    ``entry_mm`` is the centre of the hole where it enters the part, on the surface of
+    ``face``; ``axis`` points into the part; ``depth_mm`` runs along the axis from the
+    entry (through holes give their full length). ``extend_mm`` is how far the cutter
+    runs on past ``depth_mm`` into a void it breaks into (bore, socket) or out of a far
+    face, and ``lead_mm`` how far before the entry it starts, so no cut ends exactly on
+    another surface.
+    """
+
+    id: str
+    kind: str  # bore | socket | set_screw | clamp | extra
+    face: str
+    entry_mm: Vec
+    axis: Vec
+    diameter_mm: float
+    depth_mm: float
+    through: bool = False
+    drill: str | None = None
+    thread: str | None = None
+    thread_percent: float | None = None
+    countersink: Countersink | None = None
+    counterbore: Counterbore | None = None
+    extend_mm: float = 0.0
+    lead_mm: float = 1.0
+    spreader: int | None = None
+    note: str = ""
+
+    @property
+    def radius_mm(self) -> float:
+        return self.diameter_mm / 2.0
+
+    def point_at(self, t: float) -> Vec:
+        """The point ``t`` mm along the axis from the entry."""
+        e, a = self.entry_mm, self.axis
+        return (e[0] + a[0] * t, e[1] + a[1] * t, e[2] + a[2] * t)
+
+    @property
+    def bottom_mm(self) -> Vec:
+        return self.point_at(self.depth_mm)
+
+
+@dataclass(frozen=True)
+class Face:
+    """A flat face (or the rim of a puck) with a 2D frame for its template.
+
+    A face point is ``origin + u*U + v*V``; looking at the face from outside, ``U`` runs
+    to the right and ``V`` up. ``outline`` is the face boundary in (u, v).
+    """
+
+    id: str
+    kind: str  # top | bottom | flat | chamfer | rim
+    origin: Vec
+    normal: Vec
+    u_axis: Vec
+    v_axis: Vec
+    outline: tuple[Pt, ...]
+    azimuth_deg: float | None = None
+    label: str = ""
+
+    def to_face(self, p: Vec) -> Pt:
+        d = (p[0] - self.origin[0], p[1] - self.origin[1], p[2] - self.origin[2])
+        return (
+            d[0] * self.u_axis[0] + d[1] * self.u_axis[1] + d[2] * self.u_axis[2],
+            d[0] * self.v_axis[0] + d[1] * self.v_axis[1] + d[2] * self.v_axis[2],
+        )
+
+
+@dataclass(frozen=True)
+class Body:
+    """The hub body before any hole: a prism (block) or a cylinder (puck)."""
+
+    style: str  # block | puck
+    thickness_mm: float
+    sides: int | None = None
+    across_flats_mm: float | None = None
+    diameter_mm: float | None = None
+    corner_chamfer_mm: float = 0.0
+    first_flat_azimuth_deg: float = 0.0
+    outline: tuple[Pt, ...] = ()  # top view, counter-clockwise; the puck's is a fine polygon
+
+    @property
+    def outer_radius_mm(self) -> float:
+        """Apothem of the block, radius of the puck."""
+        if self.style == "puck":
+            return self.diameter_mm / 2.0
+        return self.across_flats_mm / 2.0
+
+    @property
+    def corner_radius_mm(self) -> float:
+        if self.style == "puck":
+            return self.diameter_mm / 2.0
+        return self.outer_radius_mm / math.cos(math.pi / self.sides)
+
+
+@dataclass(frozen=True)
+class Spreader:
+    id: int
+    azimuth_deg: float
+    elevation_deg: float
+    socket_hole: str
+    diameter_mm: float
+    outward: Vec  # unit vector along the pole, pointing to the tip
+    mouth_mm: Vec  # socket axis at the outer face
+    bottom_mm: Vec  # socket axis where the socket ends (bore wall or socket floor)
+    stop_radius_mm: float  # horizontal radius at which the pole end stops
+    stop: str  # what the pole butts against
+
+
+@dataclass(frozen=True)
+class HubPlan:
+    name: str
+    units: str
+    material: str
+    process: str
+    mast_designation: str
+    mast_od_mm: float
+    bore_mm: float
+    body: Body
+    faces: tuple[Face, ...]
+    holes: tuple[Hole, ...]
+    spreaders: tuple[Spreader, ...]
+    notes: tuple[str, ...] = field(default=())
+
+    def hole(self, hole_id: str) -> Hole:
+        for h in self.holes:
+            if h.id == hole_id:
+                return h
+        raise KeyError(hole_id)
+
+    def face(self, face_id: str) -> Face:
+        for f in self.faces:
+            if f.id == face_id:
+                return f
+        raise KeyError(face_id)
+
+    def holes_on(self, face_id: str) -> list[Hole]:
+        return [h for h in self.holes if h.face == face_id]
+
+
+def to_data(obj: Any) -> Any:
+    """Plain JSON-ready data (dicts, lists, floats) from plan dataclasses."""
+    return asdict(obj)

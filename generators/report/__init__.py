@@ -1,0 +1,1 @@
+"""Manifest, summaries and reports built from the plan and the build results."""

@@ -1,0 +1,101 @@
+"""manifest.json: the plan and the build results as plain data (mm, degrees)."""
+
+from __future__ import annotations
+
+import hashlib
+import json
+from pathlib import Path
+from typing import Any
+
+from generators import __version__
+from generators.plan.model import Hole, HubPlan
+
+MANIFEST = "manifest.json"
+
+
+def _r(x: float, nd: int = 6) -> float:
+    v = round(float(x), nd)
+    return 0.0 if v == 0 else v
+
+
+def hole_record(h: Hole) -> dict[str, Any]:
+    return {
+        "id": h.id,
+        "kind": h.kind,
+        "face": h.face,
+        "entry_mm": [_r(c) for c in h.entry_mm],
+        "axis": [_r(c, 9) for c in h.axis],
+        "diameter_mm": _r(h.diameter_mm),
+        "depth_mm": _r(h.depth_mm),
+        "through": h.through,
+        "drill": h.drill,
+        "thread": h.thread,
+        "thread_percent": None if h.thread_percent is None else _r(h.thread_percent, 1),
+        "countersink": None if h.countersink is None else
+        {"diameter_mm": _r(h.countersink.diameter_mm), "angle_deg": _r(h.countersink.angle_deg)},
+        "counterbore": None if h.counterbore is None else
+        {"diameter_mm": _r(h.counterbore.diameter_mm), "depth_mm": _r(h.counterbore.depth_mm)},
+        "spreader": h.spreader,
+        "note": h.note,
+    }
+
+
+def plan_record(plan: HubPlan, volume_mm3: float | None = None) -> dict[str, Any]:
+    """Everything the manifest says about the hub itself."""
+    from generators.standards.materials import get_material
+
+    mat = get_material(plan.material)
+    body = plan.body
+    hub: dict[str, Any] = {"style": body.style, "sides": body.sides, "thickness_mm": _r(body.thickness_mm)}
+    if body.style == "block":
+        hub["across_flats_mm"] = _r(body.across_flats_mm)
+        hub["corner_chamfer_mm"] = _r(body.corner_chamfer_mm)
+    else:
+        hub["diameter_mm"] = _r(body.diameter_mm)
+    hub.update({
+        "bore_mm": _r(plan.bore_mm),
+        "material": mat.id,
+        "process": plan.process,
+        "density_g_cm3": mat.density_g_cm3,
+        "density_source": mat.source,
+    })
+    if volume_mm3 is not None:
+        hub["volume_mm3"] = _r(volume_mm3, 1)
+        hub["mass_g"] = _r(volume_mm3 / 1000.0 * mat.density_g_cm3, 1)
+    return {
+        "name": plan.name,
+        "units_in_config": plan.units,
+        "generator": {"name": "hubwright", "version": __version__},
+        "mast": {"designation": plan.mast_designation, "od_mm": _r(plan.mast_od_mm)},
+        "hub": hub,
+        "holes": [hole_record(h) for h in plan.holes],
+        "spreaders": [
+            {"id": s.id, "azimuth_deg": _r(s.azimuth_deg % 360), "elevation_deg": _r(s.elevation_deg),
+             "socket_hole": s.socket_hole, "diameter_mm": _r(s.diameter_mm),
+             "stop": s.stop, "stop_radius_mm": _r(s.stop_radius_mm)}
+            for s in plan.spreaders
+        ],
+        "notes": list(plan.notes),
+    }
+
+
+def sha256(path: Path) -> str:
+    return hashlib.sha256(path.read_bytes()).hexdigest()
+
+
+def file_hashes(folder: Path) -> dict[str, str]:
+    """sha256 of every file in the folder but the manifest, by relative path, sorted."""
+    out = {}
+    for p in sorted(folder.rglob("*")):
+        if p.is_file() and p.name != MANIFEST:
+            out[p.relative_to(folder).as_posix()] = sha256(p)
+    return out
+
+
+def write_manifest(folder: Path, record: dict[str, Any]) -> dict[str, Any]:
+    """Write manifest.json with the hash of every other file; returns what was written."""
+    record = dict(record)
+    record["files"] = file_hashes(folder)
+    path = folder / MANIFEST
+    path.write_text(json.dumps(record, indent=2, sort_keys=False) + "\n", encoding="utf-8")
+    return record

@@ -1,0 +1,36 @@
+"""The short summary ``build`` prints: what was made, key sizes in the config's units, where."""
+
+from __future__ import annotations
+
+from generators.units import format_both
+
+CAUTION = ("Caution: keep masts and antennas clear of power lines; wear eye protection when drilling;"
+           " follow local codes and the mast maker's ratings.")
+
+
+def summary_lines(result) -> list[str]:
+    m = result.manifest
+    units = m["units_in_config"]
+    hub = m["hub"]
+    size = (f"{format_both(hub['across_flats_mm'], units)} across flats, {hub['sides']} sides"
+            if hub["style"] == "block" else f"{format_both(hub['diameter_mm'], units)} diameter")
+    sockets = [h for h in m["holes"] if h["kind"] == "socket"]
+    counts: dict[str, int] = {}
+    for h in m["holes"]:
+        counts[h["kind"]] = counts.get(h["kind"], 0) + 1
+    lines = [
+        f"built {m['name']}: {hub['style']} hub, {size}, {format_both(hub['thickness_mm'], units)} thick",
+        f"  mast   {m['mast']['designation']} -> OD {format_both(m['mast']['od_mm'], units)};"
+        f" bore {format_both(hub['bore_mm'], units)}",
+        f"  sockets {len(sockets)} x {format_both(sockets[0]['diameter_mm'], units)}"
+        f" at {m['spreaders'][0]['elevation_deg']:g} deg elevation" if sockets else "  no sockets",
+        "  holes  " + ", ".join(f"{n} {k}" for k, n in counts.items()),
+    ]
+    if "mass_g" in hub:
+        lines.append(f"  mass   {hub['mass_g']:.0f} g in {hub['material']}")
+    lines += list(result.summary)
+    for note in m.get("notes", []):
+        lines.append(f"  note: {note}")
+    lines.append(f"  files  {result.folder}/ ({', '.join(sorted(m['files']) + ['manifest.json'])})")
+    lines.append(CAUTION)
+    return lines

@@ -1,0 +1,153 @@
+"""Parse lengths, angles and speeds from config values; format them for shop people.
+
+Inside hubwright everything is millimetres, degrees and metres per second. A config
+value is either a bare number in the file's declared ``units`` or a string carrying
+its own unit (``"38 mm"``, ``"1-1/2 in"``, ``"1 1/4\\""``, ``"2.4 m"``, ``"7 ft"``,
+``"12 deg"``, ``"90 mph"``). Conversion factors come from pint, which is imported
+only when a string with a unit has to be converted, so commands that never see one
+start fast.
+"""
+
+from __future__ import annotations
+
+import functools
+import math
+import re
+from fractions import Fraction
+
+from generators.errors import UserError
+
+MM_PER_IN = 25.4  # exact by definition (international inch, 1959)
+
+LENGTH_UNITS = ("mm", "cm", "m", "in", '"', "ft")
+ANGLE_UNITS = ("deg", "rad")
+SPEED_UNITS = ("m/s", "km/h", "mph", "kn")
+
+_ALIASES = {
+    '"': "inch", "in": "inch", "inch": "inch", "inches": "inch", "''": "inch",
+    "'": "foot", "ft": "foot", "foot": "foot", "feet": "foot",
+    "mm": "millimeter", "cm": "centimeter", "m": "meter",
+    "deg": "degree", "degree": "degree", "degrees": "degree", "°": "degree",
+    "rad": "radian", "m/s": "meter/second", "km/h": "kilometer/hour",
+    "kph": "kilometer/hour", "mph": "mile/hour", "kn": "knot", "kt": "knot", "knots": "knot",
+}
+
+# A number: integer, decimal, fraction, or mixed number ("1-1/2", "1 1/4").
+_NUMBER = r"[+-]?(?:\d+(?:[ -]\d+/\d+)|\d+/\d+|\d*\.\d+|\d+\.?)(?:[eE][+-]?\d+)?"
+_QUANTITY = re.compile(rf"^\s*(?P<num>{_NUMBER})\s*(?P<unit>[^\d\s].*?)?\s*$")
+
+
+@functools.lru_cache(maxsize=1)
+def _registry():
+    import pint  # heavy: only when a unit string needs converting
+
+    return pint.UnitRegistry()
+
+
+def parse_number(text: str) -> float:
+    """Parse ``"1-1/2"``, ``"1 1/4"``, ``"3/8"``, ``"2.5"`` to a float."""
+    text = text.strip()
+    m = re.fullmatch(r"([+-]?)(\d+)[ -](\d+)/(\d+)", text)
+    if m:
+        sign = -1 if m.group(1) == "-" else 1
+        return sign * float(int(m.group(2)) + Fraction(int(m.group(3)), int(m.group(4))))
+    if "/" in text:
+        return float(Fraction(text))
+    return float(text)
+
+
+def _split(text: str) -> tuple[float, str | None]:
+    m = _QUANTITY.match(text)
+    if not m:
+        raise ValueError(text)
+    number = parse_number(m.group("num"))
+    unit = m.group("unit")
+    return number, (unit.strip() if unit else None)
+
+
+def _convert(value: float, unit: str, target: str) -> float:
+    name = _ALIASES.get(unit, _ALIASES.get(unit.lower(), unit))
+    reg = _registry()
+    try:
+        return float(reg.Quantity(value, name).to(target).magnitude)
+    except Exception as exc:  # pint raises several types for unknown/incompatible units
+        raise ValueError(unit) from exc
+
+
+def _quantity(value, key: str, default_unit: str | None, allowed: tuple[str, ...],
+              target: str, kind: str, example: str) -> float:
+    accepted = f"a number in the file's units or a string like {example}; units {', '.join(allowed)}"
+    if isinstance(value, bool):
+        raise UserError(key, f"expected a {kind}, got {value!r}", accepted)
+    if isinstance(value, (int, float)):
+        number, unit = float(value), default_unit
+    elif isinstance(value, str):
+        try:
+            number, unit = _split(value)
+        except (ValueError, ZeroDivisionError):
+            raise UserError(key, f"cannot read {value!r} as a {kind}", accepted) from None
+        unit = unit or default_unit
+    else:
+        raise UserError(key, f"expected a {kind}, got {type(value).__name__}", accepted)
+    if not math.isfinite(number):
+        raise UserError(key, f"{value!r} is not a finite number", accepted)
+    if unit is None:
+        raise UserError(key, f"{value!r} has no unit", accepted)
+    if _ALIASES.get(unit, _ALIASES.get(unit.lower())) not in {_ALIASES[a] for a in allowed}:
+        raise UserError(key, f"unknown or wrong kind of unit {unit!r} for a {kind}", accepted)
+    if unit == target or _ALIASES.get(unit) == _ALIASES.get(target, target):
+        return number
+    if target == "millimeter" and unit in ("in", '"', "inch"):
+        return number * MM_PER_IN  # the common case, exact, without pint
+    try:
+        return _convert(number, unit, target)
+    except ValueError:
+        raise UserError(key, f"unknown or wrong kind of unit {unit!r} for a {kind}", accepted) from None
+
+
+def length_mm(value, key: str, units: str = "mm") -> float:
+    """A length in millimetres from a config value (bare numbers are in ``units``)."""
+    return _quantity(value, key, units, LENGTH_UNITS, "millimeter", "length",
+                     '"38 mm", "1-1/2 in", "1 1/4\\"", "2.4 m", "7 ft"')
+
+
+def angle_deg(value, key: str) -> float:
+    """An angle in degrees (bare numbers are degrees)."""
+    return _quantity(value, key, "deg", ANGLE_UNITS, "degree", "angle", '"12 deg"')
+
+
+def speed_m_s(value, key: str) -> float:
+    """A speed in metres per second (bare numbers are m/s)."""
+    return _quantity(value, key, "m/s", SPEED_UNITS, "meter/second", "speed",
+                     '"40 m/s", "90 mph", "140 km/h"')
+
+
+def _fraction_text(inches: float, denominator: int = 64) -> str | None:
+    frac = Fraction(inches).limit_denominator(denominator)
+    if abs(float(frac) - inches) > 1e-6 or frac.denominator & (frac.denominator - 1):
+        return None  # shop fractions have power-of-two denominators
+    whole, rest = divmod(frac, 1)
+    if rest == 0:
+        return f"{int(whole)}"
+    if whole == 0:
+        return f"{rest.numerator}/{rest.denominator}"
+    return f"{int(whole)}-{rest.numerator}/{rest.denominator}"
+
+
+def format_length(mm: float, units: str = "mm", fractions: bool = True) -> str:
+    """Show a length as a shop person writes it: ``"38.1 mm"``, ``"1-1/2 in"``, ``"0.201 in"``."""
+    if units == "in":
+        inches = mm / MM_PER_IN
+        text = _fraction_text(inches) if fractions else None
+        if text is None:
+            text = f"{inches:.3f}"
+        return f"{text} in"
+    text = f"{mm:.2f}".rstrip("0").rstrip(".")
+    return f"{text} mm"
+
+
+def format_both(mm: float, units: str = "mm") -> str:
+    """Length in the config's units with the other system in brackets."""
+    if units == "in":
+        return f"{format_length(mm, 'in')} ({mm:.2f} mm)"
+    return f"{format_length(mm, 'mm')} ({mm / MM_PER_IN:.3f} in)"
