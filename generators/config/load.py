@@ -83,7 +83,9 @@ def _model_in(annotation) -> type[BaseModel] | None:
 
 
 def _user_error(exc: ValidationError) -> UserError:
-    err = exc.errors(include_url=False)[0]
+    errors = exc.errors(include_url=False)
+    # a misspelt key also shows up as a missing one: report the misspelling
+    err = next((e for e in errors if e["type"] == "extra_forbidden"), errors[0])
     loc = tuple(p for p in err["loc"] if not (isinstance(p, str) and ("[" in p or p.startswith("function-"))))
     kind = err["type"]
     msg = err["msg"]

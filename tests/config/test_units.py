@@ -1,0 +1,79 @@
+"""Unit strings → millimetres, degrees, m/s. Conversion factors are exact definitions
+(international inch = 25.4 mm, foot = 12 in, mile = 5280 ft, NIST SP 811 appendix B)."""
+
+import math
+
+import pytest
+from hypothesis import given, settings, strategies as st
+
+from generators.errors import UserError
+from generators.units import angle_deg, format_length, length_mm, parse_number, speed_m_s
+
+
+@pytest.mark.parametrize("text, mm", [
+    ("38 mm", 38.0),
+    ("1.5 in", 38.1),            # 1.5 x 25.4, exact (NIST SP 811)
+    ("1-1/2 in", 38.1),
+    ('1 1/4"', 31.75),
+    ("2.4 m", 2400.0),
+    ("7 ft", 2133.6),            # 7 x 304.8 mm, exact
+    ("3/8 in", 9.525),
+    ("12.5 cm", 125.0),
+])
+def test_length_strings(text, mm):
+    assert length_mm(text, "k") == pytest.approx(mm, abs=1e-9)
+
+
+def test_bare_numbers_use_the_file_units():
+    assert length_mm(2, "k", "in") == pytest.approx(50.8)
+    assert length_mm(2, "k", "mm") == 2.0
+
+
+def test_angles_and_speeds():
+    assert angle_deg("12 deg", "a") == pytest.approx(12.0)
+    assert angle_deg(f"{math.pi / 6} rad", "a") == pytest.approx(30.0)
+    assert speed_m_s("90 mph", "s") == pytest.approx(40.2336)     # 1 mph = 0.44704 m/s exact (NIST SP 811)
+    assert speed_m_s("140 km/h", "s") == pytest.approx(140 / 3.6)
+    assert speed_m_s("40 m/s", "s") == 40.0
+
+
+@pytest.mark.parametrize("bad", ["12 parsecs", "12 deg", "abc", "", "1//2 in", True, [1], "nan mm"])
+def test_bad_lengths_name_the_key(bad):
+    with pytest.raises(UserError) as exc:
+        length_mm(bad, "mast.size")
+    assert exc.value.key == "mast.size"
+    assert "\n" not in exc.value.line()
+
+
+def test_speed_rejects_a_length():
+    with pytest.raises(UserError, match="loads.wind_speed"):
+        speed_m_s("3 mm", "loads.wind_speed")
+
+
+def test_mixed_numbers():
+    assert parse_number("1-1/4") == 1.25
+    assert parse_number("1 1/4") == 1.25
+    assert parse_number("3/8") == 0.375
+
+
+@settings(max_examples=200, deadline=None)
+@given(st.integers(min_value=0, max_value=40), st.sampled_from([2, 4, 8, 16, 32, 64]),
+       st.integers(min_value=0, max_value=63))
+def test_inch_fractions_round_trip(whole, den, num):
+    """format_length in inches writes shop fractions that length_mm reads back exactly."""
+    num = num % den
+    inches = whole + num / den
+    if inches == 0:
+        return
+    text = format_length(inches * 25.4, "in")
+    assert length_mm(text, "k") == pytest.approx(inches * 25.4, abs=1e-9)
+
+
+@settings(max_examples=200, deadline=None)
+@given(st.floats(min_value=0.01, max_value=5000, allow_nan=False), st.sampled_from(["mm", "in"]))
+def test_formatted_lengths_round_trip(mm, units):
+    """Every length the tool prints reads back within its printed precision."""
+    text = format_length(mm, units, fractions=False)
+    back = length_mm(text, "k")
+    tol = 0.005 if units == "mm" else 0.0005 * 25.4
+    assert back == pytest.approx(mm, abs=tol + 1e-9)
