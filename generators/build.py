@@ -8,7 +8,7 @@ from pathlib import Path
 from typing import Any
 
 from generators.config import Config, load_config
-from generators.errors import UserError
+from generators.errors import KernelError, UserError
 from generators.output import atomic_folder
 from generators.plan.hub import build_plan
 from generators.plan.model import HubPlan
@@ -50,6 +50,19 @@ def output_folder(cfg: Config, out: str | Path | None) -> Path:
     return target
 
 
+def save_failed_config(cfg: Config, target: Path, config_path: Path | None) -> Path:
+    """Keep the config that made the kernel fail beside the output, for a bug report."""
+    import json
+
+    if config_path is not None and config_path.is_file():
+        saved = target.parent / f"{target.name}.failed.toml"
+        saved.write_bytes(config_path.read_bytes())
+    else:
+        saved = target.parent / f"{target.name}.failed.json"
+        saved.write_text(json.dumps(cfg.model_dump(), indent=2, default=str), encoding="utf-8")
+    return saved
+
+
 def _call(spec: str, ctx: BuildContext) -> None:
     module, func = spec.split(":")
     getattr(importlib.import_module(module), func)(ctx)
@@ -65,11 +78,15 @@ def build_config(cfg: Config, out: str | Path | None = None, config_path: Path |
                  **options: Any) -> BuildResult:
     plan = build_plan(cfg)
     target = output_folder(cfg, out)
-    with atomic_folder(target) as tmp:
-        ctx = BuildContext(config=cfg, plan=plan, folder=tmp, config_path=config_path, options=options)
-        for spec in WRITERS:
-            _call(spec, ctx)
-        record = plan_record(plan, ctx.volume_mm3)
-        record.update(ctx.manifest)
-        manifest = write_manifest(tmp, record)
+    try:
+        with atomic_folder(target) as tmp:
+            ctx = BuildContext(config=cfg, plan=plan, folder=tmp, config_path=config_path, options=options)
+            for spec in WRITERS:
+                _call(spec, ctx)
+            record = plan_record(plan, ctx.volume_mm3)
+            record.update(ctx.manifest)
+            manifest = write_manifest(tmp, record)
+    except KernelError as exc:
+        saved = save_failed_config(cfg, target, config_path)
+        raise KernelError(exc.key, exc.problem, f"a bug: please report it with {saved}") from None
     return BuildResult(name=cfg.name, folder=target, manifest=manifest, summary=ctx.summary)

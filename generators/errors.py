@@ -36,3 +36,7 @@ def did_you_mean(word: str, choices: Iterable[str], n: int = 3) -> str:
     if not close:
         return ""
     return "did you mean " + " or ".join(f"'{c}'" for c in close) + "?"
+
+
+class KernelError(UserError):
+    """The CAD kernel failed on a feature of a design the plan accepted (a bug to report)."""

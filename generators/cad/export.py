@@ -7,8 +7,10 @@ specification requires a manifold mesh), and is checked watertight before writin
 
 from __future__ import annotations
 
+import hashlib
 import io
 import re
+import uuid
 import zipfile
 from pathlib import Path
 
@@ -16,9 +18,10 @@ import cadquery as cq
 import numpy as np
 import trimesh
 
-from generators.errors import UserError
+from generators.errors import KernelError
 
 FIXED_ZIP_TIME = (1980, 1, 1, 0, 0, 0)
+_UUID = re.compile(rb'(UUID=")[0-9a-fA-F-]{36}"')
 _STEP_TIME = re.compile(rb"(FILE_NAME\('[^']*',')[^']*(')")
 
 
@@ -39,8 +42,8 @@ def mesh_of(solid: cq.Shape, tolerance: float, angular_deg: float, feature: str 
     mesh = trimesh.Trimesh(vertices=v, faces=f, process=True, validate=True)
     mesh.merge_vertices(digits_vertex=6)
     if not mesh.is_watertight:
-        raise UserError(feature, "the tessellated mesh is not watertight",
-                        "report it with the config written beside the output")
+        raise KernelError(feature, "the tessellated mesh is not watertight",
+                        "a bug: please report it with the saved config")
     if mesh.volume < 0:
         mesh.invert()
     return mesh
@@ -54,14 +57,29 @@ def write_3mf(mesh: trimesh.Trimesh, path: Path) -> None:
     """3MF with unit millimetre, re-zipped with fixed timestamps for reproducible bytes."""
     raw = trimesh.exchange.threemf.export_3MF(mesh)
     src = zipfile.ZipFile(io.BytesIO(raw))
+    digest = hashlib.sha256(mesh.vertices.tobytes() + mesh.faces.tobytes()).hexdigest()
     out = io.BytesIO()
     with zipfile.ZipFile(out, "w", compression=zipfile.ZIP_DEFLATED) as dst:
         for name in src.namelist():
             info = zipfile.ZipInfo(name, date_time=FIXED_ZIP_TIME)
             info.compress_type = zipfile.ZIP_DEFLATED
             info.external_attr = 0o644 << 16
-            dst.writestr(info, src.read(name))
+            data = src.read(name)
+            if name.endswith(".model"):
+                data = _stable_uuids(data, digest)
+            dst.writestr(info, data)
     path.write_bytes(out.getvalue())
+
+
+def _stable_uuids(xml: bytes, digest: str) -> bytes:
+    """Replace the random production-extension UUIDs with ones derived from the mesh."""
+    count = iter(range(1_000_000))
+
+    def repl(m: re.Match) -> bytes:
+        u = uuid.uuid5(uuid.NAMESPACE_URL, f"hubwright:{digest}:{next(count)}")
+        return m.group(1) + str(u).encode() + b'"'
+
+    return _UUID.sub(repl, xml)
 
 
 def write_solid_files(solid: cq.Shape, folder: Path, stem: str, tolerance: float,

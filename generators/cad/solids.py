@@ -6,7 +6,7 @@ import math
 
 import cadquery as cq
 
-from generators.errors import UserError
+from generators.errors import KernelError
 from generators.plan.model import Body, Hole, HubPlan
 
 
@@ -47,16 +47,24 @@ def hub_solid(plan: HubPlan) -> cq.Solid:
     cutters = [c for h in plan.holes for c in hole_cutters(h)]
     try:
         result = body.cut(*cutters).clean()
-    except Exception as exc:  # the kernel raises bare StdFail/OCP errors
-        raise UserError("hub", f"the CAD kernel failed while cutting the holes ({type(exc).__name__})",
-                        "report it with the config written beside the output") from None
-    return single_solid(result, "hub")
+        return single_solid(result, "hub")
+    except Exception:  # the kernel raises bare StdFail/OCP errors: find the hole that fails
+        pass
+    shape = body
+    for h in plan.holes:
+        try:
+            shape = single_solid(shape.cut(*hole_cutters(h)).clean(), f"hole {h.id}")
+        except Exception as exc:
+            raise KernelError(f"hole {h.id}", f"the CAD kernel failed cutting this {h.kind} hole"
+                              f" ({type(exc).__name__})", "a bug: please report it with the saved config") from None
+    return shape
 
 
 def single_solid(shape, feature: str) -> cq.Solid:
+    """The one valid solid of a boolean result, or a KernelError naming the feature."""
     solids = shape.Solids()
     if len(solids) != 1 or not solids[0].isValid():
-        raise UserError(feature, f"the cut {feature} came out as {len(solids)} solid(s)"
+        raise KernelError(feature, f"the cut {feature} came out as {len(solids)} solid(s)"
                         f"{'' if solids and solids[0].isValid() else ', not valid'}",
-                        "report it with the config written beside the output")
+                        "a bug: please report it with the saved config")
     return solids[0]
