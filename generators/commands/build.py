@@ -16,8 +16,20 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--force", action="store_true", help="write even when a design rule fails")
 
 
+def build_checked(config_path, out=None, masts=(), force=False):
+    """Plan the hub and every sleeve first (refusals before any file), then build."""
+    from generators.build import build_config
+    from generators.config import load_config
+    from generators.plan.hub import build_plan
+    from generators.plan.reducer import plan_sleeves
+    from pathlib import Path
+
+    cfg = load_config(config_path)
+    plan_sleeves(cfg, build_plan(cfg), tuple(masts))
+    return build_config(cfg, out, config_path=Path(config_path), masts=tuple(masts), force=force)
+
+
 def run(args: argparse.Namespace) -> int:
-    from generators.build import build
     from generators.report.summary import summary_lines
 
     configs = args.configs or [str(default_config())]
@@ -25,9 +37,7 @@ def run(args: argparse.Namespace) -> int:
         from generators.batch import build_many
 
         return build_many(configs, args)
-    result = build(configs[0], args.out, masts=tuple(args.mast), force=args.force)
+    result = build_checked(configs[0], args.out, masts=tuple(args.mast), force=args.force)
     for line in summary_lines(result):
         print(line)
     return 0
-
-

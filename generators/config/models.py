@@ -184,10 +184,16 @@ class Loads(Section):
 
 
 class Reducer(Section):
+    """A reducer sleeve for another mast; the defaults are in generators/plan/reducer.py."""
+
     mast: MastSpec
     flange: bool = False
     slit: bool = False
     key: bool = False
+    process: Literal["machined", "printed"] | None = None  # default: hub.process
+    fit: Annotated[Length, Field(ge=0, le=5)] | None = None  # diametral, sleeve OD to bore
+    clearance: Annotated[Length, Field(ge=0, le=25)] | None = None  # diametral, mast to sleeve ID
+    length: PositiveLength | None = None  # default: hub.thickness
 
 
 class Print(Section):

@@ -1,0 +1,106 @@
+"""Build writer for the spreader cut list: cutlist.csv, manifest ``cutlist`` and cut lengths."""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+
+from generators.plan.cutlist import CutCase, cut_list
+from generators.plan.reducer import SleevePlan, plan_sleeves
+from generators.report.manifest import MANIFEST, plan_record
+from generators.units import MM_PER_IN, format_both
+
+CUTLIST = "cutlist.csv"
+# Cut lengths closer than this are the same cut (common practice: about what a marked
+# saw cut on a fiberglass pole holds).
+RECUT_TOLERANCE_MM = 0.5
+
+
+def sleeves_for(ctx) -> list[SleevePlan]:
+    """The sleeve plans of this build: the config's reducers, then ``--mast`` sizes."""
+    return plan_sleeves(ctx.config, ctx.plan, tuple(ctx.options.get("masts", ()) or ()))
+
+
+def previous_manifest(ctx) -> dict | None:
+    """The manifest of the build this one replaces (its folder is swapped out at the end)."""
+    path = ctx.folder.parent / ctx.config.name / MANIFEST
+    try:
+        return json.loads(path.read_text(encoding="utf-8"))
+    except (OSError, ValueError):
+        return None
+
+
+def _in_units(mm: float, units: str) -> float:
+    return round(mm / MM_PER_IN, 4) if units == "in" else round(mm, 2)
+
+
+def cutlist_csv(cases: list[CutCase], units: str) -> str:
+    buf = io.StringIO()
+    w = csv.writer(buf, lineterminator="\n")
+    w.writerow(["spreader", "azimuth_deg", "elevation_deg", "stop", "stop_diameter_mm", "cut_length",
+                "units", "cut_length_mm"])
+    for case in cases:
+        stop = case.stop + (f" (sleeves {' '.join(case.sleeves)})" if case.sleeves else "")
+        for line in case.lines:
+            w.writerow([line.spreader, f"{line.azimuth_deg:g}", f"{line.elevation_deg:g}", stop,
+                        f"{2 * case.stop_radius_mm:.3f}", f"{_in_units(line.cut_length_mm, units)}",
+                        units, f"{line.cut_length_mm:.2f}"])
+    return buf.getvalue()
+
+
+def _difference(new: float, old: float, units: str, what: str) -> str:
+    d = new - old
+    if abs(d) < RECUT_TOLERANCE_MM:
+        return f"no re-cut: within {format_both(RECUT_TOLERANCE_MM, units)} of {what}"
+    if d < 0:
+        return f"re-cut: {format_both(-d, units)} shorter than {what} (trim each pole)"
+    return (f"re-cut: {format_both(d, units)} longer than {what} (poles cut for it are too short;"
+            " cut new ones or pack the stop)")
+
+
+def write_cutlist(ctx) -> None:
+    cfg, plan, units = ctx.config, ctx.plan, ctx.config.units
+    cases = cut_list(cfg, plan, sleeves_for(ctx))
+    if not cases:
+        ctx.manifest["cutlist"] = None
+        ctx.summary.append("  cut list not made: give spreaders.tip_radius or spreaders.tip_spacing")
+        return
+    (ctx.folder / CUTLIST).write_text(cutlist_csv(cases, units), encoding="utf-8")
+    primary = cases[0]
+    spreaders = plan_record(plan)["spreaders"]
+    for rec, line in zip(spreaders, primary.lines):
+        rec["cut_length_mm"] = round(line.cut_length_mm, 3)
+        rec["cut_stop"] = primary.stop
+    ctx.manifest["spreaders"] = spreaders
+    ctx.manifest["cutlist"] = {
+        "file": CUTLIST,
+        "tip_radius_mm": round(primary.tip_radius_mm, 3),
+        "tip_allowance_mm": round(primary.tip_allowance_mm, 3),
+        "cases": [{"stop": c.stop, "stop_kind": c.stop_kind, "stop_radius_mm": round(c.stop_radius_mm, 4),
+                   "end_radius_mm": round(c.end_radius_mm, 4), "sleeves": list(c.sleeves),
+                   "cut_length_mm": round(c.cut_length_mm, 3)} for c in cases],
+    }
+    n = len(primary.lines)
+    ctx.summary.append(f"  cut    {n} spreaders x {format_both(primary.cut_length_mm, units)} from the"
+                       f" {primary.stop} to the tip, {format_both(primary.tip_allowance_mm, units)}"
+                       f" allowance included -> {CUTLIST}")
+    for c in cases[1:]:
+        ctx.summary.append(f"         on the {c.stop}: {format_both(c.cut_length_mm, units)};"
+                           f" {_difference(c.cut_length_mm, primary.cut_length_mm, units, 'the cut for the ' + primary.stop)}")
+    _compare_previous(ctx, primary, units)
+
+
+def _compare_previous(ctx, primary: CutCase, units: str) -> None:
+    prev = previous_manifest(ctx)
+    old = [s.get("cut_length_mm") for s in (prev or {}).get("spreaders", [])]
+    if not old or any(v is None for v in old):
+        return
+    if len(old) != len(primary.lines):
+        ctx.summary.append("  recut  the spreader count changed since the previous build")
+        ctx.manifest["cutlist"]["recut_since_previous"] = True
+        return
+    worst = max(primary.lines, key=lambda ln: abs(ln.cut_length_mm - old[ln.spreader - 1]))
+    text = _difference(worst.cut_length_mm, old[worst.spreader - 1], units, "the previous build")
+    ctx.manifest["cutlist"]["recut_since_previous"] = text.startswith("re-cut")
+    ctx.summary.append(f"  recut  {text}")
