@@ -23,13 +23,16 @@ from generators.errors import KernelError
 FIXED_ZIP_TIME = (1980, 1, 1, 0, 0, 0)
 _UUID = re.compile(rb'(UUID=")[0-9a-fA-F-]{36}"')
 _STEP_TIME = re.compile(rb"(FILE_NAME\('[^']*',')[^']*(')")
+# the translator numbers each export in a process: name the product after the file instead
+_STEP_PRODUCT = re.compile(rb"PRODUCT\('Open CASCADE STEP translator[^']*',\s*'Open CASCADE STEP translator[^']*'")
 
 
 def write_step(solid: cq.Shape, path: Path) -> None:
     """STEP AP214 in millimetres, with the header time fixed so builds repeat."""
     solid.exportStep(str(path))
-    data = path.read_bytes()
-    path.write_bytes(_STEP_TIME.sub(rb"\g<1>1970-01-01T00:00:00\g<2>", data, count=1))
+    data = _STEP_TIME.sub(rb"\g<1>1970-01-01T00:00:00\g<2>", path.read_bytes(), count=1)
+    name = path.stem.encode()
+    path.write_bytes(_STEP_PRODUCT.sub(b"PRODUCT('" + name + b"','" + name + b"'", data, count=1))
 
 
 def mesh_of(solid: cq.Shape, tolerance: float, angular_deg: float, feature: str = "hub") -> trimesh.Trimesh:

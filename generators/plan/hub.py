@@ -123,9 +123,10 @@ class _Planner:
         wall = r_in - self.Rb
         if wall < L.MIN_BORE_WALL_MM:
             size_key = "hub.diameter" if self.body.style == "puck" else "hub.across_flats"
-            raise UserError("hub.bore", f"the bore ({self.fmt(self.bore)}) leaves a wall of"
+            key = "hub.bore" if self.cfg.hub.bore is not None else "mast.size"
+            raise UserError(key, f"the bore ({self.fmt(self.bore)}) leaves a wall of"
                             f" {self.fmt(max(wall, 0))} to the outside",
-                            f"at least {self.fmt(L.MIN_BORE_WALL_MM)}: a smaller bore or a larger {size_key}")
+                            f"at least {self.fmt(L.MIN_BORE_WALL_MM)}: a smaller mast or bore, or a larger {size_key}")
 
     # ---- faces ------------------------------------------------------------------------
     def _faces(self) -> list[Face]:
