@@ -72,3 +72,13 @@ def test_set_screw_lengths():
     assert set_screw_lengths("M6")[0] == 6 and 10 in set_screw_lengths("M6")  # ISO 4026/4029 range
     lengths = set_screw_lengths("1/4-20")
     assert lengths == sorted(lengths) and pytest.approx(0.25 * IN) in lengths
+
+
+@pytest.mark.parametrize("size, drill_in", [
+    ("#4-40", 0.1285), ("#6-32", 0.1695), ("#8-32", 0.196), ("#10-24", 0.221),
+    ("1/4-20", 0.281), ("5/16-18", 0.344), ("3/8-16", 0.406), ("7/16-14", 0.469),
+])
+def test_inch_normal_fit_matches_b18_2_8_table_1a(size, drill_in):
+    # ASME B18.2.8-1999 table 1a, normal fit drills #30, #18, #9, #2, 9/32, 11/32, 13/32, 15/32
+    # (as reprinted in Machinery's Handbook 31st ed., p. 1741)
+    assert clearance_hole(size, "normal") == pytest.approx(drill_in * IN, abs=1e-6)
