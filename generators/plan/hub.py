@@ -55,14 +55,16 @@ class _Planner:
         holes += self._set_screws(sockets)
         holes += self._clamps(sockets)
         holes += self._extras(holes, sockets)
-        if cfg.hub.process == "printed":
-            self.notes.append("process = \"printed\": nut pockets, hole compensation and support-free"
-                              " profiles are not made yet; the hub is modelled as machined")
-        return HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material,
+        plan = HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material,
                        process=cfg.hub.process, mast_designation=cfg.mast.size.designation,
                        mast_od_mm=self.mast_od, bore_mm=self.bore, body=self.body,
                        faces=tuple(self.faces), holes=tuple(holes), spreaders=tuple(spreaders),
                        notes=tuple(self.notes))
+        if cfg.hub.process == "printed":
+            from generators.plan.printed import printed_plan
+
+            plan = printed_plan(plan, cfg)
+        return plan
 
     def _check_sizes(self):
         hub = self.cfg.hub

@@ -38,7 +38,7 @@ class Hole:
     """
 
     id: str
-    kind: str  # bore | socket | set_screw | clamp | extra
+    kind: str  # bore | socket | set_screw | clamp | extra | nut_pocket | insert_pocket
     face: str
     entry_mm: Vec
     axis: Vec
@@ -54,6 +54,20 @@ class Hole:
     lead_mm: float = 1.0
     spreader: int | None = None
     note: str = ""
+    # Printed hubs (generators/plan/printed.py); the defaults describe a drilled hole.
+    # profile: "round" | "teardrop" (a 45 deg roof towards roof_up, topped at roof_mm
+    # from the axis) | "hex" (a nut pocket: diameter_mm across corners, across_flats_mm,
+    # corners along slot_dir, running slot_length_mm along slot_dir out of ``face``).
+    profile: str = "round"
+    roof_up: Vec | None = None
+    roof_mm: float | None = None
+    across_flats_mm: float | None = None
+    slot_dir: Vec | None = None
+    slot_length_mm: float = 0.0
+    serves: str | None = None  # the hole a nut or insert pocket belongs to
+    nut: str | None = None
+    insert: str | None = None
+    compensation_mm: float = 0.0  # diametral, already included in diameter_mm
 
     @property
     def radius_mm(self) -> float:
