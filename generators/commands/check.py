@@ -1,8 +1,18 @@
-"""``hubwright check [CONFIG] [--json]``: design rules and wind loads, without solids."""
+"""``hubwright check [CONFIG] [--json]``: design rules and wind loads, without solids.
+
+Exit 0 when no rule fails, 1 when one does, 2 for bad input or an unbuildable design.
+Only the config, standards and plan layers are imported, so it starts fast.
+"""
 
 from __future__ import annotations
 
 import argparse
+import json
+import sys
+import textwrap
+
+CAUTION = ("The wind figures are an estimate, not a structural certification: follow local codes,"
+           " the mast maker's ratings and licensed engineering practice; keep clear of power lines.")
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:
@@ -10,7 +20,81 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--json", action="store_true", help="print the results as JSON")
 
 
-def run(args: argparse.Namespace) -> int:
-    from generators.errors import UserError
+def figure(value, unit: str, units: str) -> str:
+    """A rule's figure as the shop reads it: lengths in the config's units."""
+    from generators.units import format_length
 
-    raise UserError("check", "the design-rule checks are not built yet")
+    if value is None:
+        return "-"
+    if unit == "mm":
+        return format_length(value, units, fractions=False)
+    if unit == "x D":
+        return f"{value:.2f} x D"
+    if unit == "deg":
+        return f"{value:.1f} deg"
+    if unit == "g":
+        return f"{value:.0f} g"
+    if unit == "SF":
+        return f"SF {value:.2f}"
+    return f"{value:g} {unit}".strip()
+
+
+def speed_text(m_s: float, units: str) -> str:
+    mph = m_s / 0.44704  # 1 mph = 0.44704 m/s exactly (international mile)
+    return f"{mph:.0f} mph ({m_s:.1f} m/s)" if units == "in" else f"{m_s:.1f} m/s ({m_s * 3.6:.0f} km/h)"
+
+
+def wind_lines(wind: dict, units: str) -> list[str]:
+    w = wind
+    lines = [f"wind  {speed_text(w['speed_m_s'], units)}: dynamic pressure {w['pressure_pa']:.0f} Pa"]
+    if w["force_per_spreader_n"] is None:
+        return lines + ["      loads not estimated (no tip position: spreaders.tip_radius or tip_spacing)"]
+    lines += [
+        f"      force per spreader {w['force_per_spreader_n']:.1f} N,"
+        f" moment at the socket mouth {w['moment_at_hub_nm']:.1f} N m",
+        f"      spreader stress {w['spreader_stress_mpa']:.0f} MPa, bearing on the socket"
+        f" {w['bearing_pressure_mpa']:.1f} MPa, set-screw pull {w['set_screw_pull_n']:.0f} N",
+        f"      lowest safety factor {w['safety_factor']:.2f}"
+        if w["safety_factor"] is not None else "      no safety factor computed",
+    ]
+    return lines
+
+
+def table(checks: dict, units: str, width: int = 100) -> str:
+    rows = [("rule", "status", "figure", "limit")]
+    for r in checks["rules"]:
+        rows.append((r["id"], r["status"], figure(r["value"], r["unit"], units), figure(r["limit"], r["unit"], units)))
+    w = [max(len(row[i]) for row in rows) for i in range(4)]
+    out = []
+    for k, row in enumerate(rows):
+        out.append("  ".join(c.ljust(w[i]) for i, c in enumerate(row)).rstrip())
+        if k == 0:
+            out.append("-" * (sum(w) + 6))
+            continue
+        msg = checks["rules"][k - 1]["message"]
+        out.extend(textwrap.wrap(msg, width, initial_indent="    ", subsequent_indent="    "))
+    return "\n".join(out)
+
+
+def run(args: argparse.Namespace) -> int:
+    from generators.config import load_config
+    from generators.demos import default_config
+    from generators.plan.hub import build_plan
+    from generators.plan.rules import failed, run_checks, warned
+
+    path = args.config or str(default_config())
+    cfg = load_config(path)
+    plan = build_plan(cfg)
+    checks = run_checks(cfg, plan)
+    bad = failed(checks)
+    if args.json:
+        json.dump(checks, sys.stdout, indent=2)
+        sys.stdout.write("\n")
+    else:
+        print(f"{cfg.name}: {len(checks['rules'])} rules, {len(bad)} failed, {len(warned(checks))} warned")
+        print(table(checks, cfg.units))
+        print()
+        print("\n".join(wind_lines(checks["wind"], cfg.units)))
+        print()
+        print(CAUTION)
+    return 1 if bad else 0

@@ -48,6 +48,8 @@ SF_SPREADER, SF_BEARING, SF_SET_SCREW = 1.5, 2.0, 2.0
 MASS_WARN_FRACTION = 0.9
 
 COMMON = "common practice"
+# Pockets for captive nuts and inserts (printed hubs): the nut carries the thread.
+POCKETS = ("nut_pocket", "insert_pocket")
 
 
 @dataclass(frozen=True)
@@ -78,10 +80,10 @@ def _grade(value: float, fail_below: float, warn_below: float) -> tuple[str, flo
 
 
 class _Rules:
-    def __init__(self, cfg: Config, plan: HubPlan):
+    def __init__(self, cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()):
         from generators.standards.materials import get_material
 
-        self.cfg, self.plan = cfg, plan
+        self.cfg, self.plan, self.masts = cfg, plan, tuple(masts)
         self.mat = get_material(plan.material)
         self.cls = self.mat.material_class
         self.min_wall = MIN_WALL_MM[self.cls]
@@ -188,8 +190,12 @@ class _Rules:
 
         return parse_thread(h.thread)
 
+    def _pocket(self, h: Hole) -> Hole | None:
+        """The captive-nut or insert pocket serving a clearance hole (printed hubs)."""
+        return next((p for p in self.plan.holes if p.kind in POCKETS and getattr(p, "serves", None) == h.id), None)
+
     def rule_thread_engagement(self) -> RuleResult:
-        tapped = [h for h in self.plan.holes if h.thread]
+        tapped = [h for h in self.plan.holes if h.thread and h.kind not in POCKETS]
         if not tapped:
             return self._na("thread-engagement", "x D", "no tapped holes")
         factor = self.mat.engagement_factor
@@ -215,6 +221,7 @@ class _Rules:
         """Per set screw: distance from its face to the seated pole, thread length, the
         chosen or configured stock length and how much of it sits in the thread."""
         from generators.standards.fasteners import set_screw_lengths
+        from generators.standards.threads import parse_thread
 
         ss = self.cfg.set_screws
         out = []
@@ -223,17 +230,35 @@ class _Rules:
             e = self._elev(sock)
             # the pole pushed onto the far side of its socket by the screw
             gap_to_pole = h.depth_mm - (self.cfg.spreaders.diameter - sock.radius_mm) / math.cos(e)
-            thread_len = self._engaged(h)
-            lengths = set_screw_lengths(h.thread)
-            D = self._thread(h).major_mm
+            pocket = None if h.thread else self._pocket(h)
+            if h.thread:
+                thread, thread_len, nut_far = h.thread, self._engaged(h), None
+            elif pocket is not None and pocket.thread:
+                # a captive nut: the screw must run through it; it sits across the hole
+                t_nut = sum((pocket.entry_mm[i] - h.entry_mm[i]) * h.axis[i] for i in range(3))
+                thread, nut_far = pocket.thread, t_nut + pocket.depth_mm / 2
+                thread_len = pocket.depth_mm
+            else:
+                continue
+            lengths = set_screw_lengths(thread)
+            D = parse_thread(thread).major_mm
             if ss is not None and ss.length is not None:
                 length, chosen = ss.length, False
             else:
                 fit = [x for x in lengths if x <= gap_to_pole + 1e-9]
                 length, chosen = (max(fit) if fit else min(lengths)), True
-            out.append({"hole": h.id, "thread": h.thread, "length_mm": length, "chosen": chosen,
+            if nut_far is None:
+                in_thread = length - (gap_to_pole - thread_len)
+            else:  # overlap of the screw [gap - L, gap] with the nut [far - h, far]
+                in_thread = min(gap_to_pole, nut_far) - max(gap_to_pole - length, nut_far - thread_len)
+                if chosen:  # the shortest stock length that runs through the whole nut
+                    ok = [x for x in lengths if x <= gap_to_pole + 1e-9 and gap_to_pole - x <= nut_far - thread_len + 1e-9]
+                    if ok:
+                        length = min(ok)
+                        in_thread = min(gap_to_pole, nut_far) - max(gap_to_pole - length, nut_far - thread_len)
+            out.append({"hole": h.id, "thread": thread, "length_mm": length, "chosen": chosen,
                         "gap_to_pole_mm": gap_to_pole, "thread_mm": thread_len,
-                        "in_thread_mm": length - (gap_to_pole - thread_len), "major_mm": D,
+                        "in_thread_mm": in_thread, "major_mm": D, "captive_nut": nut_far is not None,
                         "stock_mm": lengths})
         return out
 
@@ -249,7 +274,7 @@ class _Rules:
                 return FAIL, f"stands {self.fmt(proud)} proud of the face when tight"
             if f["in_thread_mm"] <= 0:
                 return FAIL, "does not reach the pole while still in its thread"
-            if f["in_thread_mm"] < SET_SCREW_MIN_ENGAGED_D * f["major_mm"]:
+            if f["in_thread_mm"] < self._need_in_thread(f) - 1e-9:
                 return WARN, f"only {self.fmt(f['in_thread_mm'])} of it is in the thread when tight"
             return PASS, ""
 
@@ -263,18 +288,25 @@ class _Rules:
                    " below the face").replace("  ", " ")
         else:
             fit = [x for x in f["stock_mm"] if x <= f["gap_to_pole_mm"] + 1e-9
-                   and x - (f["gap_to_pole_mm"] - f["thread_mm"]) >= SET_SCREW_MIN_ENGAGED_D * f["major_mm"]]
+                   and x - (f["gap_to_pole_mm"] - f["thread_mm"]) >= self._need_in_thread(f) - 1e-9]
             hint = (f"use {f['thread']} x {self.fmt(max(fit))} (set_screws.length)" if fit else
                     "no stock length fits: a thicker hub, or a set screw position where the hole is longer")
             msg = f"{f['hole']}: {size} {why}; {hint}"
         return RuleResult("set-screw-length", status, f["length_mm"], f["gap_to_pole_mm"], "mm", msg, src)
 
+    def _need_in_thread(self, f: dict) -> float:
+        """Thread a tight set screw must still have: 1 x D in a tapped hole, or (nearly)
+        the whole captive nut (common practice)."""
+        if f.get("captive_nut"):
+            return 0.9 * f["thread_mm"]
+        return SET_SCREW_MIN_ENGAGED_D * f["major_mm"]
+
     # ---- hole placement -----------------------------------------------------------------
     def hole_edge(self, h: Hole) -> float | None:
         """Rim of the hole to the nearest edge of its face (sockets: sideways only; their
         top and bottom are the socket-wall rule's)."""
-        if h.kind == "bore":
-            return None
+        if h.kind == "bore" or h.kind in POCKETS:
+            return None  # the bore has its own wall limit; pockets open onto a face by design
         face = self.plan.face(h.face)
         u, v = face.to_face(h.entry_mm)
         r = max(h.radius_mm, (h.countersink.diameter_mm / 2) if h.countersink else 0.0,
@@ -363,12 +395,22 @@ class _Rules:
                           f"geometry of the tilted socket; minimum wall {COMMON}")
 
     def sleeves(self) -> list[dict]:
-        """Reducer sleeve OD, ID and wall per ``[[reducers]]`` entry."""
+        """Reducer sleeve OD, ID and wall per ``[[reducers]]`` entry (and ``--mast`` size),
+        from ``generators.plan.reducer`` when it is there, else from the bore and mast OD."""
+        try:
+            from generators.plan.reducer import plan_sleeves
+        except ImportError:  # pragma: no cover - the reducer module ships with hubwright
+            plan_sleeves = None
+        if plan_sleeves is not None:
+            return [{"key": s.key, "mast": s.mast_designation,
+                     "mast_od_mm": s.mast_od_mm, "od_mm": s.od_mm, "id_mm": s.id_mm,
+                     "wall_mm": s.wall_mm} for s in plan_sleeves(self.cfg, self.plan, self.masts)]
         out = []
         for i, red in enumerate(self.cfg.reducers):
             od = self.plan.bore_mm - SLEEVE_FIT_MM
             id_ = red.mast.od_mm + self.cfg.mast.clearance
-            out.append({"key": f"reducers[{i}]", "mast": red.mast.designation, "od_mm": od, "id_mm": id_,
+            out.append({"key": f"reducers[{i}]", "mast": red.mast.designation,
+                        "mast_od_mm": red.mast.od_mm, "od_mm": od, "id_mm": id_,
                         "wall_mm": (od - id_) / 2})
         return out
 
@@ -381,12 +423,12 @@ class _Rules:
         msg = (f"{s['key']} ({s['mast']}): sleeve {self.fmt(s['od_mm'])} OD x {self.fmt(s['id_mm'])} ID,"
                f" wall {self.fmt(s['wall_mm'])}")
         if status != PASS:
-            largest = self.plan.bore_mm - SLEEVE_FIT_MM - 2 * SLEEVE_RECOMMENDED_MM - self.cfg.mast.clearance
+            largest = s["od_mm"] - 2 * SLEEVE_RECOMMENDED_MM - (s["id_mm"] - s["mast_od_mm"])
             msg += (f"; want {self.fmt(SLEEVE_RECOMMENDED_MM)}: a larger hub.bore, or a mast of at most"
                     f" {self.fmt(max(largest, 0))} OD in this bore")
         return RuleResult("sleeve-wall", status, s["wall_mm"], limit, "mm", msg,
                           f"{COMMON}: sleeve wall at least {SLEEVE_MIN_MM:g} mm, recommended"
-                          f" {SLEEVE_RECOMMENDED_MM:g} mm; slip fit {SLEEVE_FIT_MM:g} mm diametral")
+                          f" {SLEEVE_RECOMMENDED_MM:g} mm")
 
     # ---- mass ---------------------------------------------------------------------------
     def mass_estimate_g(self) -> float:
@@ -497,11 +539,11 @@ class Checks:
         return {"rules": [r.as_json() for r in self.rules], "wind": self.wind.as_json()}
 
 
-def evaluate(cfg: Config, plan: HubPlan) -> Checks:
-    """Every rule and the wind estimate for a plan."""
+def evaluate(cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()) -> Checks:
+    """Every rule and the wind estimate for a plan (``masts``: extra sleeves asked for)."""
     from generators.plan.loads import wind_estimate
 
-    r = _Rules(cfg, plan)
+    r = _Rules(cfg, plan, masts)
     results = [getattr(r, name)() for name in RULES]
     wind = wind_estimate(cfg, plan, r.engaged_set_screw_mm)
     results += r.wind_rules(wind)
@@ -509,9 +551,9 @@ def evaluate(cfg: Config, plan: HubPlan) -> Checks:
                   sleeves=tuple(r.sleeves()), mass_estimate_g=r.mass_estimate_g())
 
 
-def run_checks(cfg: Config, plan: HubPlan) -> dict:
+def run_checks(cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()) -> dict:
     """``{"rules": [...], "wind": {...}}`` as plain data."""
-    return evaluate(cfg, plan).as_json()
+    return evaluate(cfg, plan, masts).as_json()
 
 
 def failed(checks: dict) -> list[dict]:
