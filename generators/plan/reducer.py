@@ -192,10 +192,10 @@ def plan_sleeve(cfg: Config, plan: HubPlan, spec: Reducer, key: str = "reducers[
         notes.append(f"file a flat {fmt(KEY_FLAT_DEPTH_MM)} deep on the mast facing the sleeve's flat")
     holes = () if slit else tuple(_clamp_holes(cfg, clamps, od, id_, key_flat))
     if slit and clamps:
-        notes.append("the clamp screws bear on the slit sleeve and close it onto the mast")
+        notes.append("the clamp screw bears on the slit sleeve and closes it onto the mast")
     elif clamps:
-        notes.append("the clamp screws pass through the sleeve to the mast: use screws one sleeve wall"
-                     f" ({fmt(wall)}) longer")
+        notes.append("the clamp screw passes through the sleeve to the mast: use a screw"
+                     f" {fmt(holes[0].depth_mm)} (the sleeve wall there) longer")
     return SleevePlan(key=key, mast_designation=mast.designation, mast_od_mm=mast.od_mm, od_mm=od,
                       id_mm=id_, length_mm=length, fit_mm=fit, clearance_mm=clearance, process=process,
                       bore_mm=bore, flange=flange, slit=slit, key_flat=key_flat, holes=holes,
