@@ -23,10 +23,21 @@ PROBE_TOL = 1e-4  # classifier tolerance, well below every probe offset (>= 0.05
 EPS = 0.05  # how far a probe sits off a surface it checks (mm)
 
 
-def solid_at(solid, p) -> bool:
-    import cadquery as cq
+class Classifier:
+    """OCP BRepClass3d_SolidClassifier loaded once per solid (what cadquery's
+    ``Solid.isInside`` builds afresh on every call); ON a face counts as material."""
 
-    return solid.isInside(cq.Vector(*map(float, p)), PROBE_TOL)
+    def __init__(self, solid):
+        from OCP.BRepClass3d import BRepClass3d_SolidClassifier
+
+        self._c = BRepClass3d_SolidClassifier(solid.wrapped)
+
+    def __call__(self, p) -> bool:
+        from OCP.gp import gp_Pnt
+        from OCP.TopAbs import TopAbs_IN, TopAbs_ON
+
+        self._c.Perform(gp_Pnt(*map(float, p)), PROBE_TOL)
+        return self._c.State() in (TopAbs_IN, TopAbs_ON)
 
 
 class Probe:
@@ -37,10 +48,11 @@ class Probe:
         self.oracle = Oracle(b.config, b.manifest)
         self.errors: list[str] = []
         self.count = 0
+        self.solid_at = Classifier(b.solid)
 
     def expect(self, p, material: bool, what: str):
         self.count += 1
-        got = solid_at(self.b.solid, p)
+        got = self.solid_at(p)
         if got != material:
             xyz = ", ".join(f"{c:.3f}" for c in p)
             self.errors.append(f"{what}: expected {'material' if material else 'void'} at ({xyz})")

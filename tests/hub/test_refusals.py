@@ -1,0 +1,112 @@
+"""Designs that cannot be built are refused (issue 3 item 6), seen from the command line:
+exit 2, one ``error: <key>: ...`` line on stderr, no traceback, nothing written."""
+
+from __future__ import annotations
+
+import copy
+import math
+import os
+import subprocess
+import sys
+
+import pytest
+
+from conftest import ROOT
+from cases import demo
+import tomlout
+
+
+def metric(**changes) -> dict:
+    """The metric demo with whole sections replaced or updated: ``hub={...}``."""
+    cfg = demo("metric-demo")
+    for section, value in changes.items():
+        if value is None:
+            cfg.pop(section, None)
+        elif isinstance(value, dict) and isinstance(cfg.get(section), dict):
+            cfg[section] = {**cfg[section], **value}
+        else:
+            cfg[section] = value
+    return cfg
+
+
+def _demo_socket_r():
+    d = demo("metric-demo")["spreaders"]
+    return (d["diameter"] + d["fit"]) / 2
+
+
+# Six 30.5 mm sockets on a 51 mm bore: chord geometry says N circles of radius r set
+# around a circle of radius R overlap unless R sin(pi/N) > r (the spacing of their
+# centres, 2 R sin(pi/N), must exceed 2r); 25.5 * sin(30 deg) = 12.75 < 15.25.
+CROWDED = metric(spreaders={"diameter": 30}, holes=None, set_screws=None)
+assert 25.5 * math.sin(math.pi / 6) < (30 + 0.5) / 2
+
+REFUSALS = {
+    "sockets-meet-before-bore": (CROWDED, "spreaders.diameter"),
+    # at 45 deg the 20.5 mm socket's mouth rises above a 46 mm thick hub
+    "socket-breaks-out-top": (metric(spreaders={"elevation": 45}), "spreaders.elevation"),
+    # an absurd M24 pilot beside 6.5 mm sockets 30 deg apart: the only way a pilot
+    # wider than its own socket reaches the next socket before the bore check stops it
+    "set-screw-into-neighbour-socket": (metric(
+        mast={"size": "20 mm"}, holes=None,
+        hub={"sides": 12, "corner_chamfer": 0, "bore": 31},
+        spreaders={"count": 12, "diameter": 6, "elevation": 0},
+        set_screws={"thread": "M24", "per_spreader": 1, "face": "top", "position": 50}),
+        "set_screws.thread"),
+    "set-screw-into-bore": (metric(set_screws={"position": 52}), "set_screws.position"),
+    # M5 tap hole 2.65 mm from the corner chamfer (azimuth 30 deg, 88 mm out)
+    "hole-near-edge": (metric(holes=[{"id": "E1", "face": "top", "thread": "M5", "depth": 10,
+                                      "at": [88 * math.cos(math.pi / 6), 88 * math.sin(math.pi / 6)]}]),
+                       "holes[0].at"),
+    "mast-larger-than-bore": (metric(hub={"bore": 45}), "hub.bore"),
+    # 160 mm across flats leave a 2 mm wall around a 156 mm bore (80 - 78)
+    "bore-leaves-thin-wall": (metric(hub={"bore": 156}, holes=None, set_screws=None), "hub.bore"),
+    "sides-not-multiple-of-count": (metric(hub={"sides": 9}), "hub.sides"),
+    # six sides for six sockets and no chamfer: a sharp corner between sockets
+    "clamp-hole-sharp-corner": (metric(hub={"corner_chamfer": 0}, mast_clamp={"thread": "M6"}),
+                                "mast_clamp"),
+    # a 6 mm chamfer is too narrow for the 5 mm M6 tap drill plus an edge margin
+    "clamp-hole-narrow-chamfer": (metric(mast_clamp={"thread": "M6", "count": 2}), "hub.corner_chamfer"),
+}
+
+
+def run_build(cfg: dict, tmp_path):
+    path = tmp_path / "hub.toml"
+    path.write_text(tomlout.dumps(cfg), encoding="utf-8")
+    out = tmp_path / "out"
+    env = {**os.environ, "PYTHONPATH": str(ROOT)}
+    proc = subprocess.run([sys.executable, "-m", "generators", "build", str(path), "--out", str(out)],
+                          cwd=tmp_path, env=env, capture_output=True, text=True, timeout=120)
+    return proc, out
+
+
+@pytest.mark.parametrize("case", sorted(REFUSALS))
+def test_refused_with_one_line_and_nothing_written(case, tmp_path):
+    cfg, key = REFUSALS[case]
+    proc, out = run_build(copy.deepcopy(cfg), tmp_path)
+    assert proc.returncode == 2, proc.stderr
+    lines = proc.stderr.splitlines()
+    assert len(lines) == 1, proc.stderr
+    assert lines[0].startswith(f"error: {key}: "), lines[0]
+    assert "Traceback" not in proc.stderr + proc.stdout
+    assert not out.exists() or not any(out.iterdir()), f"written: {list(out.iterdir())}"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["hub.toml", "out"] or \
+        sorted(p.name for p in tmp_path.iterdir()) == ["hub.toml"]
+
+
+def test_crowded_sockets_refusal_names_the_bore_to_change(tmp_path):
+    """The line says what to change: a larger bore, fewer or thinner spreaders."""
+    proc, _ = run_build(copy.deepcopy(CROWDED), tmp_path)
+    assert "hub.bore" in proc.stderr
+
+
+@pytest.mark.slow
+def test_just_clear_of_the_crowding_limit_builds(tmp_path):
+    """The same six 30.5 mm sockets build once the bore is wide enough for the chord
+    geometry above plus a web: the refusal is not a blanket one."""
+    r = (30 + 0.5) / 2
+    bore = 2 * (r + 2.0) / math.sin(math.pi / 6)  # 2 mm web, more than the 1.5 mm minimum
+    cfg = metric(spreaders={"diameter": 30}, holes=None, set_screws=None,
+                 hub={"bore": round(bore, 1), "across_flats": 200, "thickness": 50})
+    proc, out = run_build(cfg, tmp_path)
+    assert proc.returncode == 0, proc.stderr
+    assert (out / cfg["name"] / "hub.step").is_file()
