@@ -174,6 +174,10 @@ def plan_sleeve(cfg: Config, plan: HubPlan, spec: Reducer, key: str = "reducers[
         raise UserError(f"{base}.length", f"{fmt(length)} is longer than the hub is thick",
                         f"at most {fmt(plan.body.thickness_mm)} (the default)")
     clamps = [h for h in plan.holes if h.kind == "clamp"]
+    for h in clamps:
+        if h.entry_mm[2] + h.radius_mm + L.MIN_EDGE_MM > length:
+            raise UserError(f"{base}.length", f"a {fmt(length)} sleeve stops below the hub's clamp hole"
+                            f" {h.id}", f"at least {fmt(h.entry_mm[2] + h.radius_mm + L.MIN_EDGE_MM)}")
     clamp_az = [math.degrees(math.atan2(h.entry_mm[1], h.entry_mm[0])) for h in clamps]
     notes: list[str] = []
 
