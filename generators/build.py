@@ -18,6 +18,9 @@ from generators.report.manifest import plan_record, write_manifest
 # writer adds files to ctx.folder, sections to ctx.manifest and lines to ctx.summary.
 WRITERS: tuple[str, ...] = (
     "generators.cad.writer:write_hub",
+    "generators.cad.extras_writer:write_print_checks",
+    "generators.cad.extras_writer:write_jig",
+    "generators.cad.extras_writer:write_tip_cap",
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
 )

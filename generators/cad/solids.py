@@ -28,7 +28,12 @@ def hole_cutters(hole: Hole) -> list[cq.Solid]:
     entry = _vec(hole.entry_mm)
     start = entry - axis * hole.lead_mm
     length = hole.lead_mm + hole.depth_mm + hole.extend_mm
-    cutters = [cq.Solid.makeCylinder(hole.radius_mm, length, start, axis)]
+    if hole.profile == "hex":
+        return [_hex_slot(hole)]
+    if hole.profile == "teardrop":
+        cutters = [_teardrop(hole, start, axis, length)]
+    else:
+        cutters = [cq.Solid.makeCylinder(hole.radius_mm, length, start, axis)]
     if hole.countersink is not None:
         cs = hole.countersink
         half = math.radians(cs.angle_deg / 2)
@@ -39,6 +44,42 @@ def hole_cutters(hole: Hole) -> list[cq.Solid]:
         cb = hole.counterbore
         cutters.append(cq.Solid.makeCylinder(cb.diameter_mm / 2, hole.lead_mm + cb.depth_mm, start, axis))
     return cutters
+
+
+def _prism(points3d: list[cq.Vector], extrude: cq.Vector, edges: list[cq.Edge] | None = None) -> cq.Solid:
+    wire = cq.Wire.assembleEdges(edges) if edges else cq.Wire.makePolygon(points3d, close=True)
+    return cq.Solid.extrudeLinear(cq.Face.makeFromWires(wire), extrude)
+
+
+def _teardrop(hole: Hole, start: cq.Vector, axis: cq.Vector, length: float) -> cq.Solid:
+    """A round hole whose upper half is a 45 deg roof towards ``roof_up`` (cut flat at roof_mm)."""
+    up = _vec(hole.roof_up).normalized()
+    side = up.cross(axis).normalized()
+    r, apex = hole.radius_mm, hole.radius_mm * math.sqrt(2.0)
+    at = lambda x, y: start + side * x + up * y  # noqa: E731
+    c45 = r * math.sqrt(0.5)
+    right, left, low = at(c45, c45), at(-c45, c45), at(0.0, -r)
+    edges = [cq.Edge.makeThreePointArc(right, low, left)]
+    if hole.roof_mm >= apex - 1e-9:
+        top = at(0.0, apex)
+        edges += [cq.Edge.makeLine(left, top), cq.Edge.makeLine(top, right)]
+    else:
+        half = apex - hole.roof_mm
+        tl, tr = at(-half, hole.roof_mm), at(half, hole.roof_mm)
+        edges += [cq.Edge.makeLine(left, tl), cq.Edge.makeLine(tl, tr), cq.Edge.makeLine(tr, right)]
+    return _prism([], axis * length, edges)
+
+
+def _hex_slot(hole: Hole) -> cq.Solid:
+    """A nut pocket: the hexagon and the slot it slides in by, as one prism along the screw axis."""
+    from generators.plan.printed import hex_slot_outline
+
+    axis = _vec(hole.axis).normalized()
+    s = _vec(hole.slot_dir).normalized()
+    w = axis.cross(s).normalized()
+    entry = _vec(hole.entry_mm)
+    pts = [entry + s * x + w * y for x, y in hex_slot_outline(hole)]
+    return _prism(pts, axis * hole.depth_mm)
 
 
 def hub_solid(plan: HubPlan) -> cq.Solid:

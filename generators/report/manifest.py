@@ -37,7 +37,31 @@ def hole_record(h: Hole) -> dict[str, Any]:
         {"diameter_mm": _r(h.counterbore.diameter_mm), "depth_mm": _r(h.counterbore.depth_mm)},
         "spreader": h.spreader,
         "note": h.note,
+        **_print_fields(h),
     }
+
+
+def _print_fields(h: Hole) -> dict[str, Any]:
+    """The printed-hub fields of a hole, only where they differ from a drilled hole."""
+    out: dict[str, Any] = {}
+    if h.profile != "round":
+        out["profile"] = h.profile
+    if h.roof_up is not None:
+        out["roof_up"] = [_r(c, 9) for c in h.roof_up]
+        out["roof_mm"] = _r(h.roof_mm)
+    if h.across_flats_mm is not None:
+        out["across_flats_mm"] = _r(h.across_flats_mm)
+        out["across_corners_mm"] = _r(h.diameter_mm)
+    if h.slot_dir is not None:
+        out["slot_dir"] = [_r(c, 9) for c in h.slot_dir]
+        out["slot_length_mm"] = _r(h.slot_length_mm)
+        out["center_mm"] = [_r(c) for c in h.point_at(h.depth_mm / 2)]
+    for key in ("serves", "nut", "insert"):
+        if getattr(h, key) is not None:
+            out[key] = getattr(h, key)
+    if h.compensation_mm:
+        out["compensation_mm"] = _r(h.compensation_mm)
+    return out
 
 
 def plan_record(plan: HubPlan, volume_mm3: float | None = None) -> dict[str, Any]:

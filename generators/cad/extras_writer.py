@@ -1,0 +1,122 @@
+"""Build writers for the extra parts: the drill-press angle jig (machined hubs with tilted
+sockets), the spreader tip cap ([tip_cap]) and the print checks of a printed hub."""
+
+from __future__ import annotations
+
+from generators.cad.export import mesh_of, write_3mf, write_step, write_stl
+from generators.units import format_both
+
+
+def _r(x: float) -> float:
+    return round(float(x), 3)
+
+
+def write_jig(ctx) -> None:
+    """jig.step, jig.stl and jig.dxf; ctx.manifest["jig"]."""
+    from generators.plan.jig import jig_plan, jig_reason
+
+    plan, cfg = ctx.plan, ctx.config
+    jig = jig_plan(plan, cfg)
+    if jig is None:
+        reason = jig_reason(plan, cfg)
+        if plan.process == "machined" and cfg.spreaders.elevation > 0:
+            ctx.manifest["jig"] = {"made": False, "reason": reason}
+            ctx.summary.append(f"  jig    none: {reason}")
+        return
+    from generators.cad.jig import jig_solid, write_jig_dxf
+
+    out = cfg.output
+    solid = jig_solid(jig)
+    write_step(solid, ctx.folder / "jig.step")
+    write_stl(mesh_of(solid, out.tolerance, out.angular_tolerance, feature="jig"), ctx.folder / "jig.stl")
+    write_jig_dxf(jig, ctx.folder / "jig.dxf", f"Config units: {cfg.units}; drawing in mm, 1:1.")
+    ctx.manifest["jig"] = {
+        "made": True,
+        "files": ["jig.step", "jig.stl", "jig.dxf"],
+        "wedge_angle_deg": _r(jig.wedge_angle_deg),
+        "width_mm": _r(jig.width_mm),
+        "slope_length_mm": _r(jig.slope_length_mm),
+        "base_length_mm": _r(jig.base_length_mm),
+        "low_height_mm": _r(jig.low_height_mm),
+        "high_height_mm": _r(jig.high_height_mm),
+        "fence_height_mm": _r(jig.fence_height_mm),
+        "fence_thickness_mm": _r(jig.fence_thickness_mm),
+        "rests_on": {hole: face for hole, face in jig.rests_on},
+        "setup": ("lay the hub on the flat opposite the socket to drill, top face against the fence;"
+                  " the socket axis is then vertical under the drill; clamp the jig to the table"),
+        "volume_mm3": round(float(solid.Volume()), 1),
+    }
+    ctx.summary.append(f"  jig    {jig.wedge_angle_deg:g} deg wedge, {format_both(jig.width_mm, cfg.units)} wide"
+                       " (jig.step, jig.stl, jig.dxf): drill each socket with the hub on it")
+
+
+def write_tip_cap(ctx) -> None:
+    """tipcap.stl and tipcap.3mf; ctx.manifest["tip_cap"]."""
+    from generators.plan.tipcap import tip_cap_plan
+
+    cap = tip_cap_plan(ctx.config)
+    if cap is None:
+        return
+    from generators.cad.printed import print_problems, threemf_unit
+    from generators.cad.tipcap import tip_cap_solid
+
+    out = ctx.config.output
+    solid = tip_cap_solid(cap)
+    mesh = mesh_of(solid, out.tolerance, out.angular_tolerance, feature="tip cap")
+    write_stl(mesh, ctx.folder / "tipcap.stl")
+    write_3mf(mesh, ctx.folder / "tipcap.3mf")
+    units = ctx.config.units
+    ctx.manifest["tip_cap"] = {
+        "files": ["tipcap.stl", "tipcap.3mf"],
+        "depth_mm": _r(cap.depth_mm),
+        "bore_mm": _r(cap.bore_mm),
+        "modelled_bore_mm": _r(cap.modelled_bore_mm),
+        "end_thickness_mm": _r(cap.end_thickness_mm),
+        "length_mm": _r(cap.length_mm),
+        "outer_diameter_mm": _r(cap.outer_diameter_mm),
+        "wall_mm": _r(cap.wall_mm),
+        "tip_diameter_mm": _r(cap.tip_diameter_mm),
+        "fit_mm": _r(cap.fit_mm),
+        "cord_hole_mm": _r(cap.cord_hole.diameter_mm),
+        "cord_hole_z_mm": _r(cap.cord_hole.entry_mm[2]),
+        "unit_3mf": threemf_unit(ctx.folder / "tipcap.3mf"),
+        "print_problems": print_problems(mesh),
+    }
+    ctx.summary.append(f"  cap    tip cap for a {format_both(cap.tip_diameter_mm, units)} tip,"
+                       f" {format_both(cap.depth_mm, units)} deep, {format_both(cap.length_mm, units)} long"
+                       " (tipcap.stl, tipcap.3mf): print one per spreader, closed end down")
+
+
+def write_print_checks(ctx) -> None:
+    """For a printed hub: the bed, unit and overhang checks of hub.stl / hub.3mf, and the nuts."""
+    if ctx.plan.process != "printed":
+        return
+    import trimesh
+
+    from generators.cad.printed import print_problems, threemf_unit
+    from generators.plan.printed import BRIDGE_LIMIT_MM, MIN_WALL_LINES, OVERHANG_DEG, min_wall_mm
+
+    mesh = trimesh.load(ctx.folder / "hub.stl", force="mesh")
+    problems = print_problems(mesh)
+    nuts: dict[tuple, int] = {}
+    for h in ctx.plan.holes:
+        if h.kind in ("nut_pocket", "insert_pocket"):
+            key = (h.kind, h.thread, h.nut or h.insert)
+            nuts[key] = nuts.get(key, 0) + 1
+    pr = ctx.config.print
+    ctx.manifest["print"] = {
+        "orientation": "bottom face on the bed, as modelled",
+        "min_z_mm": round(float(mesh.bounds[0][2]), 6),
+        "unit_3mf": threemf_unit(ctx.folder / "hub.3mf"),
+        "hole_compensation_mm": pr.hole_compensation,
+        "nut_allowance_mm": pr.nut_allowance,
+        "line_width_mm": pr.line_width,
+        "min_wall_lines": MIN_WALL_LINES,
+        "min_wall_mm": round(min_wall_mm(ctx.config), 3),
+        "overhang_limit_deg": OVERHANG_DEG,
+        "bridge_limit_mm": BRIDGE_LIMIT_MM,
+        "problems": problems,
+        "fasteners": [{"kind": k, "thread": t, "part": d, "count": n} for (k, t, d), n in sorted(nuts.items())],
+    }
+    for p in problems:
+        ctx.summary.append(f"  print  warning: {p}")
