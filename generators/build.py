@@ -8,7 +8,7 @@ from pathlib import Path
 from typing import Any
 
 from generators.config import Config, load_config
-from generators.errors import KernelError, UserError
+from generators.errors import DesignRuleError, KernelError, UserError
 from generators.output import atomic_folder
 from generators.plan.hub import build_plan
 from generators.plan.model import HubPlan
@@ -23,6 +23,8 @@ WRITERS: tuple[str, ...] = (
     "generators.cad.extras_writer:write_tip_cap",
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
+    "generators.drawings.writer:write_templates",
+    "generators.report.writer:write_report",
 )
 
 
@@ -68,6 +70,30 @@ def save_failed_config(cfg: Config, target: Path, config_path: Path | None) -> P
     return saved
 
 
+def design_checks(cfg: Config, plan: HubPlan, options: dict[str, Any]) -> dict[str, Any]:
+    """The design rules of ``check``; a failed rule stops the build unless ``force``."""
+    from generators.plan.rules import failed, run_checks
+
+    checks = run_checks(cfg, plan, tuple(options.get("masts") or ()))
+    bad = failed(checks)
+    if bad and not options.get("force"):
+        listed = "; ".join(f"{r['id']}: {r['message']}" for r in bad)
+        raise DesignRuleError("checks", f"{len(bad)} design rule(s) failed, nothing written: {listed}",
+                              "change the design, or build anyway with --force")
+    return checks
+
+
+def check_summary(checks: dict[str, Any]) -> list[str]:
+    """Summary lines: the counts, then every failed or warned rule."""
+    rules = checks["rules"]
+    n = {s: sum(r["status"] == s for r in rules) for s in ("pass", "warn", "fail")}
+    lines = [f"  checks {n['pass']} pass, {n['warn']} warn, {n['fail']} fail (hubwright check for the table)"]
+    for r in rules:
+        if r["status"] != "pass":
+            lines.append(f"    {r['status']} {r['id']}: {r['message']}")
+    return lines
+
+
 def _call(spec: str, ctx: BuildContext) -> None:
     module, func = spec.split(":")
     getattr(importlib.import_module(module), func)(ctx)
@@ -82,10 +108,13 @@ def build(config_path: str | Path, out: str | Path | None = None, **options: Any
 def build_config(cfg: Config, out: str | Path | None = None, config_path: Path | None = None,
                  **options: Any) -> BuildResult:
     plan = build_plan(cfg)
+    checks = design_checks(cfg, plan, options)
     target = output_folder(cfg, out)
     try:
         with atomic_folder(target) as tmp:
             ctx = BuildContext(config=cfg, plan=plan, folder=tmp, config_path=config_path, options=options)
+            ctx.manifest["checks"] = checks
+            ctx.summary.extend(check_summary(checks))
             for spec in WRITERS:
                 _call(spec, ctx)
             record = plan_record(plan, ctx.volume_mm3)

@@ -40,3 +40,9 @@ def did_you_mean(word: str, choices: Iterable[str], n: int = 3) -> str:
 
 class KernelError(UserError):
     """The CAD kernel failed on a feature of a design the plan accepted (a bug to report)."""
+
+
+class DesignRuleError(UserError):
+    """A design rule of ``hubwright check`` failed, so ``build`` wrote nothing (exit 1)."""
+
+    exit_code = 1

@@ -39,12 +39,9 @@ def figure(value, unit: str, units: str) -> str:
     return f"{value:g} {unit}".strip()
 
 
-def speed_text(m_s: float, units: str) -> str:
-    mph = m_s / 0.44704  # 1 mph = 0.44704 m/s exactly (international mile)
-    return f"{mph:.0f} mph ({m_s:.1f} m/s)" if units == "in" else f"{m_s:.1f} m/s ({m_s * 3.6:.0f} km/h)"
-
-
 def wind_lines(wind: dict, units: str) -> list[str]:
+    from generators.plan.rules import speed_text
+
     w = wind
     lines = [f"wind  {speed_text(w['speed_m_s'], units)}: dynamic pressure {w['pressure_pa']:.0f} Pa"]
     if w["force_per_spreader_n"] is None:

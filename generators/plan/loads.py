@@ -205,11 +205,9 @@ def wind_estimate(cfg: Config, plan: HubPlan, engaged_mm: float | None = None) -
     if min(L_m) <= 0:
         return WindResult(speed_m_s=ld.wind_speed, pressure_pa=q, tip_radius_mm=R,
                           skipped="the tip radius is inside the hub: check spreaders.tip_radius / tip_spacing")
-    worst: SpreaderLoad | None = None
-    for az in _directions():
-        for load in spreader_loads(cfg, plan, q, az, L_m):
-            if worst is None or load.moment_nm > worst.moment_nm * (1 + 1e-9):
-                worst = load
+    loads = [load for az in _directions() for load in spreader_loads(cfg, plan, q, az, L_m)]
+    # the largest moment; among equal ones (a symmetric hub) the lowest spreader id
+    worst = max(loads, key=lambda x: (round(x.moment_nm, 6), -x.spreader, -x.wind_azimuth_deg))
     # axial pull: wind along the spreader (sin^2 = 0): the wire share plus skin friction
     d_m = cfg.spreaders.diameter / 1000.0
     L = worst.exposed_length_m

@@ -70,6 +70,13 @@ class RuleResult:
         return d
 
 
+def speed_text(m_s: float, units: str) -> str:
+    """A wind speed as the config's users say it (1 mph = 0.44704 m/s exactly)."""
+    if units == "in":
+        return f"{m_s / 0.44704:.0f} mph ({m_s:.1f} m/s)"
+    return f"{m_s:.1f} m/s ({m_s * 3.6:.0f} km/h)"
+
+
 def _grade(value: float, fail_below: float, warn_below: float) -> tuple[str, float]:
     """Status and the limit it was judged against (the minimum when failing)."""
     if value < fail_below - 1e-9:
@@ -380,15 +387,17 @@ class _Rules:
                 lo, hi = (mid, hi) if wall(mid) >= w else (lo, mid)
             return lo
 
-        at_break, at_min = max_elev(0.0), max_elev(self.min_wall)
-        if wall(e_now) < 0:
-            status, limit = FAIL, at_break
-        elif wall(e_now) < self.min_wall:
-            status, limit = WARN, at_min
+        rec = max(RECOMMENDED_OVER_MIN * self.min_wall, WALL_OVER_SOCKET * h.diameter_mm)
+        at_break, at_min, at_rec = max_elev(0.0), max_elev(self.min_wall), max_elev(rec)
+        if wall(e_now) < self.min_wall - 1e-9:
+            status, limit = FAIL, at_min
+        elif wall(e_now) < rec - 1e-9:
+            status, limit = WARN, at_rec
         else:
-            status, limit = PASS, at_min
-        msg = (f"{h.id}: elevation {e_now:.1f} deg; this body takes up to {at_min:.1f} deg with"
-               f" {self.fmt(self.min_wall)} of wall (breaks out past {at_break:.1f} deg)")
+            status, limit = PASS, at_rec
+        msg = (f"{h.id}: elevation {e_now:.1f} deg; this body takes up to {at_rec:.1f} deg with the"
+               f" recommended {self.fmt(rec)} of wall, {at_min:.1f} deg with the minimum"
+               f" {self.fmt(self.min_wall)} (breaks out past {at_break:.1f} deg)")
         if status != PASS:
             msg += "; less elevation (spreaders.elevation) or a thicker hub (hub.thickness)"
         return RuleResult("socket-tilt", status, e_now, limit, "deg", msg,
@@ -466,7 +475,7 @@ class _Rules:
         sf = wind.sf_spreader
         st = WARN if sf < SF_SPREADER else PASS
         msg = (f"spreader {wind.worst_spreader}: {wind.spreader_stress_mpa:.0f} MPa at the socket mouth in"
-               f" {wind.speed_m_s:.0f} m/s against {wind.spreader_allowable_mpa:.0f} MPa"
+               f" {speed_text(wind.speed_m_s, self.cfg.units)} against {wind.spreader_allowable_mpa:.0f} MPa"
                f" ({self.cfg.loads.spreader_material}){note}: safety factor {sf:.2f}")
         if st != PASS:
             msg += ("; the pole itself is at risk in this wind" if sf < 1 else "") + \

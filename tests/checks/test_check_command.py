@@ -1,0 +1,89 @@
+"""``hubwright check``: JSON keys, exit codes 0 / 1 / 2 in a real process, no CAD import."""
+
+from __future__ import annotations
+
+import json
+import subprocess
+import sys
+
+import pytest
+
+from helpers import INCH, METRIC, ROOT, modified, toml_text
+
+RULE_KEYS = {"id", "status", "value", "limit", "unit", "message", "source"}
+WIND_KEYS = {"speed_m_s", "pressure_pa", "force_per_spreader_n", "moment_at_hub_nm", "spreader_stress_mpa",
+             "bearing_pressure_mpa", "set_screw_pull_n", "safety_factor"}
+
+
+def hubwright(*args, cwd=ROOT):
+    return subprocess.run([sys.executable, "-m", "generators", *args], cwd=cwd, capture_output=True,
+                          text=True, timeout=60)
+
+
+@pytest.mark.parametrize("path", [METRIC, INCH], ids=["metric", "inch"])
+def test_json_keys_and_exit_0_on_the_demos(path):
+    p = hubwright("check", str(path), "--json")
+    assert p.returncode == 0, p.stderr
+    data = json.loads(p.stdout)
+    assert set(data) == {"rules", "wind"}
+    assert data["rules"] and all(set(r) == RULE_KEYS for r in data["rules"])
+    assert set(data["wind"]) == WIND_KEYS
+
+
+def test_default_config_is_the_metric_demo_and_prints_a_table():
+    p = hubwright("check")
+    assert p.returncode == 0, p.stderr
+    assert "hex-portable-50" in p.stdout and "socket-wall" in p.stdout and "dynamic pressure" in p.stdout
+    assert "not a structural certification" in p.stdout
+
+
+def test_thin_wall_exits_1_with_a_suggestion(tmp_path):
+    cfg = tmp_path / "thin.toml"
+    cfg.write_text(toml_text(modified(hub={"thickness": 24}, spreaders={"elevation": 0})), encoding="utf-8")
+    p = hubwright("check", str(cfg))
+    assert p.returncode == 1, p.stdout + p.stderr
+    line = next(ln for ln in p.stdout.splitlines() if ln.startswith("socket-wall"))
+    assert "fail" in line
+    assert "hub.thickness" in p.stdout
+
+
+@pytest.mark.parametrize("args", [("check", "no-such.toml"), ("check", "BAD")])
+def test_bad_input_exits_2(tmp_path, args):
+    if args[1] == "BAD":
+        bad = tmp_path / "bad.toml"
+        bad.write_text(toml_text(modified(hub={"thickness": "thick"})), encoding="utf-8")
+        args = ("check", str(bad))
+    p = hubwright(*args, cwd=tmp_path)
+    assert p.returncode == 2
+    assert p.stderr.startswith("error: ") and len(p.stderr.strip().splitlines()) == 1
+
+
+def test_check_does_not_import_the_cad_kernel():
+    code = ("import sys; from generators.cli import main; rc = main(['check']);"
+            "print(rc, 'cadquery' in sys.modules, 'matplotlib' in sys.modules, 'ezdxf' in sys.modules)")
+    p = subprocess.run([sys.executable, "-c", code], cwd=ROOT, capture_output=True, text=True, timeout=60)
+    assert p.stdout.strip().splitlines()[-1] == "0 False False False"
+
+
+def test_build_refuses_a_failed_rule_unless_forced():
+    from generators.build import design_checks
+    from generators.config.load import parse_config
+    from generators.errors import DesignRuleError
+    from generators.plan.hub import build_plan
+
+    cfg = parse_config(modified(hub={"thickness": 24}, spreaders={"elevation": 0}))
+    plan = build_plan(cfg)
+    with pytest.raises(DesignRuleError) as exc:
+        design_checks(cfg, plan, {"force": False})
+    assert exc.value.exit_code == 1 and "socket-wall" in exc.value.line() and "\n" not in exc.value.line()
+    checks = design_checks(cfg, plan, {"force": True})
+    assert any(r["status"] == "fail" for r in checks["rules"])
+
+
+def test_build_cli_exits_1_and_writes_nothing(tmp_path):
+    cfg = tmp_path / "thin.toml"
+    cfg.write_text(toml_text(modified(hub={"thickness": 24}, spreaders={"elevation": 0})), encoding="utf-8")
+    p = hubwright("build", str(cfg), "--out", str(tmp_path / "out"))
+    assert p.returncode == 1
+    assert "socket-wall" in p.stderr and "--force" in p.stderr
+    assert not (tmp_path / "out" / "hex-portable-50").exists()
