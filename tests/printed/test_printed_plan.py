@@ -1,0 +1,124 @@
+"""The printed plan, without solids: clearance holes, compensation, pockets, profiles, walls."""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from generators.config import load_config
+from generators.errors import UserError
+from generators.plan.hub import build_plan
+from generators.plan.printed import BRIDGE_LIMIT_MM
+
+from .conftest import PRINTED
+
+# ISO 273 medium (normal) clearance holes, mm (from memory: ISO 273 table 1)
+ISO273_MEDIUM = {"M4": 4.5, "M5": 5.5, "M6": 6.6}
+# ISO 4032 hex nuts: s max across flats, e min across corners, m max height, mm
+# (from memory: ISO 4032 table 1)
+ISO4032 = {"M4": (7.0, 7.66, 3.2), "M5": (8.0, 8.79, 4.7), "M6": (10.0, 11.05, 5.2)}
+
+
+def _size(thread: str) -> str:
+    return thread.split("x")[0]
+
+
+def _variant(cfg, **print_fields):
+    return cfg.model_copy(update={"print": cfg.print.model_copy(update=print_fields)})
+
+
+@pytest.fixture(scope="module")
+def cfg():
+    return load_config(PRINTED)
+
+
+@pytest.fixture(scope="module")
+def plans(cfg):
+    machined = cfg.model_copy(update={"hub": cfg.hub.model_copy(update={"process": "machined"})})
+    return build_plan(machined), build_plan(cfg)
+
+
+def test_compensated_diameters_equal_drilled_plus_compensation(cfg, plans):
+    machined, printed = plans
+    comp = cfg.print.hole_compensation
+    for m in machined.holes:
+        p = printed.hole(m.id)
+        if m.thread is None:
+            assert p.diameter_mm == pytest.approx(m.diameter_mm + comp), m.id
+        else:  # tapped -> ISO 273 normal clearance hole, then compensated
+            assert p.thread is None and p.drill is None
+            assert p.diameter_mm == pytest.approx(ISO273_MEDIUM[_size(m.thread)] + comp), m.id
+        assert p.compensation_mm == pytest.approx(comp)
+
+
+def test_every_tapped_hole_gets_a_nut_pocket_on_its_axis(cfg, plans):
+    machined, printed = plans
+    allow = cfg.print.nut_allowance
+    tapped = [h for h in machined.holes if h.thread is not None]
+    assert {h.kind for h in tapped} >= {"set_screw", "clamp"}
+    pockets = {h.serves: h for h in printed.holes if h.kind == "nut_pocket"}
+    assert set(pockets) == {h.id for h in tapped}
+    for m in tapped:
+        pk = pockets[m.id]
+        s, e, height = ISO4032[_size(m.thread)]
+        assert pk.across_flats_mm >= s + allow - 1e-9
+        assert pk.diameter_mm >= e + allow - 1e-9  # across corners
+        assert pk.depth_mm == pytest.approx(height + allow)
+        # the pocket centre lies on the screw axis, inside the run of the hole
+        c = pk.point_at(pk.depth_mm / 2)
+        d = tuple(c[i] - m.entry_mm[i] for i in range(3))
+        t = sum(d[i] * m.axis[i] for i in range(3))
+        off = math.dist(c, m.point_at(t))
+        assert off < 1e-6 and 0 < t < m.depth_mm, m.id
+        # slot square to the screw, so the nut slides in across it
+        assert abs(sum(pk.slot_dir[i] * m.axis[i] for i in range(3))) < 1e-9
+
+
+def test_horizontal_holes_get_a_teardrop_and_vertical_ones_stay_round(plans):
+    _, printed = plans
+    for h in printed.holes:
+        if h.kind in ("nut_pocket",):
+            continue
+        tilt = math.degrees(math.acos(min(1.0, abs(h.axis[2]))))
+        if tilt > 45:
+            assert h.profile == "teardrop", h.id
+            up = h.roof_up
+            assert abs(sum(up[i] * h.axis[i] for i in range(3))) < 1e-9 and up[2] > 0
+            assert h.radius_mm <= h.roof_mm <= h.radius_mm * math.sqrt(2) + 1e-9
+            assert 2 * (h.radius_mm * math.sqrt(2) - h.roof_mm) <= BRIDGE_LIMIT_MM
+        else:
+            assert h.profile == "round", h.id
+    assert {h.kind for h in printed.holes if h.profile == "teardrop"} >= {"socket", "clamp"}
+
+
+def test_insert_pockets_replace_nuts_when_insert_sizes_are_given(cfg):
+    plan = build_plan(_variant(cfg, insert_hole=7.9, insert_depth=8.0))
+    inserts = [h for h in plan.holes if h.kind == "insert_pocket"]
+    assert not [h for h in plan.holes if h.kind == "nut_pocket"]
+    assert len(inserts) == sum(1 for h in plan.holes if h.kind in ("set_screw", "clamp", "extra"))
+    for h in inserts:
+        assert h.diameter_mm == pytest.approx(7.9 + cfg.print.hole_compensation)
+        assert h.depth_mm == pytest.approx(8.0)
+        assert h.entry_mm == plan.hole(h.serves).entry_mm
+
+
+def test_insert_needs_both_sizes(cfg):
+    with pytest.raises(UserError) as err:
+        build_plan(_variant(cfg, insert_hole=6.4))
+    assert err.value.key == "print.insert_depth"
+
+
+def test_thin_printed_walls_are_refused(cfg):
+    # 1.5 mm lines x 4 = 6 mm walls cannot fit between the clamp holes and the sockets
+    with pytest.raises(UserError) as err:
+        build_plan(_variant(cfg, line_width=1.5))
+    assert "wall" in err.value.problem or "material" in err.value.problem
+
+
+def test_machined_plan_is_unchanged_by_the_print_section():
+    from .conftest import TILTED
+
+    plan = build_plan(load_config(TILTED))
+    assert all(h.profile == "round" and h.compensation_mm == 0 for h in plan.holes)
+    assert not [h for h in plan.holes if h.kind.endswith("_pocket")]
