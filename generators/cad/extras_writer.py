@@ -42,7 +42,7 @@ def write_jig(ctx) -> None:
         "fence_height_mm": _r(jig.fence_height_mm),
         "fence_thickness_mm": _r(jig.fence_thickness_mm),
         "rests_on": {hole: face for hole, face in jig.rests_on},
-        "setup": ("lay the hub on the flat opposite the socket to drill, top face against the fence;"
+        "setup": ("lay the hub on the flat opposite the socket to drill, bottom face against the fence;"
                   " the socket axis is then vertical under the drill; clamp the jig to the table"),
         "volume_mm3": round(float(solid.Volume()), 1),
     }

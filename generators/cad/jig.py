@@ -56,7 +56,7 @@ def write_jig_dxf(jig: JigPlan, path: Path, units_note: str) -> None:
     msp.add_linear_dim(base=(base_end[0] + 15, 0), p1=(base_end[0], y_top),
                        p2=(base_end[0], y_top + jig.width_mm), angle=90, dimstyle=st, dxfattribs=dim).render()
     notes = [f"ANGLE JIG: wedge {jig.wedge_angle_deg:g} deg, width {jig.width_mm:.1f} mm (all sizes mm)",
-             "Lay the hub on the flat opposite the socket, top face against the fence;",
+             "Lay the hub on the flat opposite the socket, bottom face against the fence;",
              "the socket axis is then vertical under the drill. Clamp the jig to the table.",
              units_note]
     for i, text in enumerate(notes):

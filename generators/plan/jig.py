@@ -1,7 +1,7 @@
 """The drill-press angle jig for a machined hub with tilted sockets (plain data).
 
 To drill a socket that rises outward at the elevation angle ``e``, lay the hub on the
-flat opposite that socket (the socket's own flat faces up) with the hub's top face
+flat opposite that socket (the socket's own flat faces up) with the hub's bottom face
 against the fence: on a wedge tilted by ``e`` the socket axis is then vertical under
 the drill. The same jig serves every socket. Jig frame: X across the wedge (centred),
 Y along the slope (fence at the low end, Y = 0 where the slope starts), Z up, the base
