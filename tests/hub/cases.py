@@ -28,7 +28,7 @@ def demo(name: str) -> dict:
 TRI_PUCK_30 = {
     "name": "tri-puck-30", "units": "mm",
     "mast": {"size": "32 mm", "clearance": 1.0},
-    "hub": {"style": "puck", "diameter": 120, "thickness": 52, "material": "petg", "process": "printed"},
+    "hub": {"style": "puck", "diameter": 120, "thickness": 52, "material": "petg", "process": "machined"},
     "spreaders": {"count": 3, "diameter": 16, "elevation": "30 deg", "first_azimuth": 90},
     "set_screws": {"thread": "M5", "per_spreader": 2, "face": "bottom"},
     "mast_clamp": {"thread": "M6", "count": 3},
