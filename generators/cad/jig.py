@@ -19,11 +19,24 @@ def jig_solid(jig: JigPlan) -> cq.Solid:
 
 
 def write_jig_dxf(jig: JigPlan, path: Path, units_note: str) -> None:
-    """Side view (the profile) and top view (footprint) with their dimensions, 1:1 in mm."""
+    """Side view (the profile) and top view (footprint) with their dimensions, 1:1 in mm.
+
+    Written with ezdxf's fixed metadata (no creation times), so two builds give the same bytes.
+    """
+    import ezdxf
+
+    before = ezdxf.options.write_fixed_meta_data_for_testing
+    ezdxf.options.write_fixed_meta_data_for_testing = True
+    try:
+        _jig_dxf(jig, path, units_note)
+    finally:
+        ezdxf.options.write_fixed_meta_data_for_testing = before
+
+
+def _jig_dxf(jig: JigPlan, path: Path, units_note: str) -> None:
     import ezdxf
     from ezdxf import units
 
-    ezdxf.options.write_fixed_meta_data_for_testing = True
     doc = ezdxf.new("R2010", setup=True)
     doc.units = units.MM
     doc.header["$INSUNITS"] = units.MM
