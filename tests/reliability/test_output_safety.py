@@ -48,7 +48,7 @@ def test_complete_output_matches_its_manifest(built):
 
 @pytest.mark.slow
 def test_interrupted_build_keeps_the_previous_output(built):
-    before = {p.name: p.read_bytes() for p in (built / NAME).iterdir()}
+    before = {p.relative_to(built).as_posix(): p.read_bytes() for p in (built / NAME).rglob("*") if p.is_file()}
     proc = subprocess.Popen([sys.executable, "-m", "generators", "build", str(DEMO), "--out", str(built)],
                             cwd=ROOT, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
     deadline = time.time() + 120
@@ -64,7 +64,7 @@ def test_interrupted_build_keeps_the_previous_output(built):
     if not hit:
         pytest.skip("the build finished before the signal could be sent")
     assert proc.returncode != 0
-    after = {p.name: p.read_bytes() for p in (built / NAME).iterdir()}
+    after = {p.relative_to(built).as_posix(): p.read_bytes() for p in (built / NAME).rglob("*") if p.is_file()}
     assert after == before
     # the next run clears any leftover and leaves exactly one complete output
     r = run_build(DEMO, "--out", built)
