@@ -110,3 +110,48 @@ def test_just_clear_of_the_crowding_limit_builds(tmp_path):
     proc, out = run_build(cfg, tmp_path)
     assert proc.returncode == 0, proc.stderr
     assert (out / cfg["name"] / "hub.step").is_file()
+
+
+# A socket that only touches the top or bottom face (zero skin) or leaves a skin far
+# thinner than the 1.5 mm least web of the README's hard limits is a break-out in all
+# but name: the kernel cannot cut a tangent cylinder cleanly, and a 0.05 mm skin cannot
+# be machined or printed. The plan must refuse it (exit 2) even with --force.
+SKIN_KEYS = ("spreaders.elevation", "hub.thickness", "spreaders.diameter")
+
+
+def _skin_case(skin_mm: float, elevation: float) -> dict:
+    """The metric demo made just thick enough for its sockets plus ``skin_mm`` top and
+    bottom. A tilted socket's vertical section through its axis is r / cos(e) high each
+    side of the axis (plane section of a cylinder); the axis is at mid-thickness halfway
+    along its run (issue 3 item 3), so it sits (run / 2) tan(e) higher at the mouth."""
+    cfg = metric(holes=None, set_screws=None, spreaders={"elevation": elevation})
+    sp = cfg["spreaders"]
+    r = (sp["diameter"] + sp["fit"]) / 2
+    e = math.radians(elevation)
+    run = cfg["hub"]["across_flats"] / 2 - (50 + 1.0) / 2  # outer face to the bore wall
+    cfg["hub"]["thickness"] = round(2 * (run / 2 * math.tan(e) + r / math.cos(e) + skin_mm), 6)
+    return cfg
+
+
+@pytest.mark.parametrize("skin, elevation", [(0.0, 0), (0.05, 0), (0.0, 10), (0.05, 10)])
+def test_socket_touching_top_or_bottom_is_refused_by_the_plan(skin, elevation):
+    from generators.config import parse_config
+    from generators.errors import UserError
+    from generators.plan.hub import build_plan
+
+    with pytest.raises(UserError) as info:
+        build_plan(parse_config(_skin_case(skin, elevation)))
+    assert info.value.key in SKIN_KEYS
+
+
+def test_tangent_socket_is_refused_cleanly_even_with_force(tmp_path):
+    path = tmp_path / "hub.toml"
+    path.write_text(tomlout.dumps(_skin_case(0.0, 0)), encoding="utf-8")
+    out = tmp_path / "out"
+    proc = subprocess.run([sys.executable, "-m", "generators", "build", str(path), "--out", str(out),
+                           "--force"], cwd=tmp_path, env={**os.environ, "PYTHONPATH": str(ROOT)},
+                          capture_output=True, text=True, timeout=300)
+    lines = proc.stderr.splitlines()
+    assert proc.returncode == 2 and len(lines) == 1, proc.stderr
+    assert lines[0].startswith(tuple(f"error: {k}: " for k in SKIN_KEYS)), lines[0]
+    assert not out.exists() or not any(out.iterdir()), f"written: {list(out.iterdir())}"
