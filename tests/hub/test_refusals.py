@@ -155,3 +155,17 @@ def test_tangent_socket_is_refused_cleanly_even_with_force(tmp_path):
     assert proc.returncode == 2 and len(lines) == 1, proc.stderr
     assert lines[0].startswith(tuple(f"error: {k}: " for k in SKIN_KEYS)), lines[0]
     assert not out.exists() or not any(out.iterdir()), f"written: {list(out.iterdir())}"
+
+
+def test_two_set_screws_of_one_socket_that_merge_are_refused():
+    """Two #10-24 pilots (0.154 in tap drill) a few mm apart along one socket would run
+    into each other; like any two cuts they need the 1.5 mm least web (README hard limits)."""
+    from generators.config import parse_config
+    from generators.errors import UserError
+    from generators.plan.hub import build_plan
+
+    cfg = demo("inch-demo")
+    cfg["set_screws"].update(per_spreader=2, position=1.75)  # second one halfway to the 2 in floor
+    with pytest.raises(UserError) as info:
+        build_plan(parse_config(cfg))
+    assert info.value.key.startswith("set_screws.")
