@@ -31,6 +31,18 @@ def summary_lines(result) -> list[str]:
     lines += list(result.summary)
     for note in m.get("notes", []):
         lines.append(f"  note: {note}")
-    lines.append(f"  files  {result.folder}/ ({', '.join(sorted(m['files']) + ['manifest.json'])})")
+    lines.append(f"  files  {result.folder}/ ({', '.join(_file_list(m['files']) + ['manifest.json'])})")
     lines.append(CAUTION)
     return lines
+
+
+def _file_list(files) -> list[str]:
+    """Top-level files by name; a subfolder as one entry with its file count."""
+    top, folders = [], {}
+    for name in sorted(files):
+        head, sep, _ = name.partition("/")
+        if sep:
+            folders[head] = folders.get(head, 0) + 1
+        else:
+            top.append(name)
+    return top + [f"{d}/ ({n} files)" for d, n in sorted(folders.items())]
