@@ -19,8 +19,8 @@ from probes import Oracle, perpendiculars, unit
 pytestmark = pytest.mark.slow
 
 NAMES = sorted(CASES)
-PROBE_TOL = 1e-4  # classifier tolerance, well below every probe offset (>= 0.05 mm)
-EPS = 0.05  # how far a probe sits off a surface it checks (mm)
+PROBE_TOL = 1e-5  # classifier tolerance, well below every probe offset (>= 0.01 mm)
+EPS = 0.01  # how far a probe sits off a face it checks (mm): the entry lies on its face within this
 
 
 class Classifier:
