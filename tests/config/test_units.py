@@ -77,3 +77,20 @@ def test_formatted_lengths_round_trip(mm, units):
     back = length_mm(text, "k")
     tol = 0.005 if units == "mm" else 0.0005 * 25.4
     assert back == pytest.approx(mm, abs=tol + 1e-9)
+
+
+@pytest.mark.parametrize("text, kind, target", [
+    ("1 in", "length", "millimeter"), ("1 ft", "length", "millimeter"), ("1 m", "length", "millimeter"),
+    ("1 cm", "length", "millimeter"), ("1 rad", "angle", "degree"), ("1 mph", "speed", "meter/second"),
+    ("1 km/h", "speed", "meter/second"), ("1 kn", "speed", "meter/second"),
+])
+def test_factors_agree_with_pint(text, kind, target):
+    """Every unit factor against pint, the general-purpose units library, as reference."""
+    pint = pytest.importorskip("pint")
+    from generators.units import _ALIASES
+
+    reg = pint.UnitRegistry()
+    number, unit = text.split(" ", 1)
+    ours = {"length": length_mm, "angle": angle_deg, "speed": speed_m_s}[kind](text, "k")
+    ref = reg.Quantity(float(number), _ALIASES[unit]).to(target).magnitude
+    assert ours == pytest.approx(ref, rel=1e-12)
