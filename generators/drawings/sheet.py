@@ -169,9 +169,16 @@ def drill_series(cfg) -> tuple[str, ...]:
     return ("fractional", "number", "letter") if cfg.units == "in" else ("metric",)
 
 
-def drill_label(name: str, units: str) -> str:
-    from generators.standards.drills import find_drill
+def drill_label(name: str, diameter_mm: float, units: str) -> str:
+    """The shop label of the plan's drill: ``#7 (0.2010 in)``, ``5/16 (0.3125 in)``, ``5.0 mm``.
 
+    Looked up by name and size together: a 1 in fractional drill is named ``1`` like the
+    number drill ``#1`` is found by ``"1"``."""
+    from generators.standards.drills import SERIES, drills, find_drill
+
+    for d in drills(SERIES):
+        if d.name == name and abs(d.diameter_mm - diameter_mm) <= 0.02:
+            return d.label(units)
     return find_drill(name).label(units)
 
 
@@ -535,7 +542,7 @@ class _SheetBuilder:
 
     def _drill_text(self, h: Hole) -> str:
         if h.drill:
-            return drill_label(h.drill, self.units)
+            return drill_label(h.drill, h.diameter_mm, self.units)
         return f"bore {coord(h.diameter_mm, self.units)}"
 
     def _table(self, pos: dict[str, Pt], tilts: dict[str, Tilt]) -> list[tuple[str, ...]]:
@@ -583,7 +590,8 @@ class _SheetBuilder:
                 why = "plain hole"
             if h.drill:
                 big = h.diameter_mm
-                drill_lines.append(f"Drill {drill_label(h.drill, self.units)}: {id_list(ids)}, {depth} ({why}){tilt}.")
+                drill_lines.append(f"Drill {drill_label(h.drill, h.diameter_mm, self.units)}: {id_list(ids)}, {depth}"
+                                   f" ({why}){tilt}.")
             else:
                 under = largest_drill_under(h.diameter_mm, self.series)
                 from generators.standards.drills import drills

@@ -301,6 +301,12 @@ def test_drilling_order_in_shop_names_inch(templates):
     assert "Tap 1/4-20 UNC: C1" in info_text(t, "chamfer-1")
 
 
+def test_a_one_inch_drill_is_not_the_number_1_drill(templates):
+    text = info_text(templates("big-block-inch"), "top")
+    assert "Drill 1 (1.0000 in): BIG, 1.000 in deep" in text  # fractional 1 in, not #1 (0.2280 in)
+    assert "Pilot 5/16 (0.3125 in): BIG" in text
+
+
 def test_drilling_order_metric_and_counterbore(templates):
     t = templates("metric-demo")
     text = info_text(t, "top")
