@@ -631,6 +631,14 @@ class _SheetBuilder:
             steps.append(f"{what}: {id_list(ids)}.")
         return steps
 
+    def _jig_note(self) -> str:
+        from generators.plan.jig import jig_reason
+
+        if self.face.kind != "flat" or jig_reason(self.plan, self.cfg) is not None:
+            return ""
+        return (" The angle jig of this build (jig.dxf, jig.step, jig.stl) is that wedge: the hub on the flat"
+                " opposite this one, bottom face against the fence.")
+
     def _notes(self, tilts: dict[str, Tilt]) -> list[str]:
         f, u = self.face, self.units
         notes = []
@@ -664,7 +672,7 @@ class _SheetBuilder:
                              f" edge is higher, or lay the part on a {deg:g} deg wedge with its {low} towards the low"
                              f" end (against the fence), or use a drill guide set to {deg:g} deg. Spot and drill on the"
                              " crosshair with the work tilted. The arrow shows where the tip goes; the section beside"
-                             " the face is at the true angle, to set a bevel from.")
+                             " the face is at the true angle, to set a bevel from." + self._jig_note())
             else:
                 notes.append(f"Tilt for {id_list(ids)}: the drill runs {deg:g} deg off square to the face, towards"
                              f" {towards}; use a drill guide or an angle plate set to {deg:g} deg.")

@@ -335,6 +335,7 @@ def test_tilted_socket_has_entry_angle_direction_and_setup(templates):
     assert "tilt 10.0 deg" in text
     assert "tilt the drill-press table 10 deg so the top-face edge is higher" in text
     assert "10 deg wedge with its bottom face towards the low end" in text
+    assert "angle jig of this build (jig.dxf, jig.step, jig.stl)" in text
 
 
 def test_wrap_strip_for_a_puck(templates):
