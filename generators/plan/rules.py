@@ -42,8 +42,10 @@ SLEEVE_MIN_MM, SLEEVE_RECOMMENDED_MM = 1.5, 3.0
 # Diametral slip fit of a sleeve in the bore when generators.plan.reducer is not there
 # (common practice).
 SLEEVE_FIT_MM = 0.3
-# Wind safety factors below these warn (common practice for an estimate like this one).
+# Wind safety factors below these warn (common practice for an estimate like this one);
+# below 1 the estimate says the part fails in the design wind, and the rule fails.
 SF_SPREADER, SF_BEARING, SF_SET_SCREW = 1.5, 2.0, 2.0
+SF_FAIL = 1.0
 # Mass above this fraction of hub.max_mass warns.
 MASS_WARN_FRACTION = 0.9
 
@@ -464,7 +466,7 @@ class _Rules:
 
     # ---- wind ---------------------------------------------------------------------------
     def wind_rules(self, wind) -> list[RuleResult]:
-        """Wind safety factors only warn: the estimate is conservative and uncertain."""
+        """Wind safety factors warn below the recommended figure and fail below 1."""
         if wind.skipped:
             return [RuleResult("wind", WARN, None, None, "", f"wind not estimated: {wind.skipped}",
                                "issue: wind needs the tip position")]
@@ -473,7 +475,7 @@ class _Rules:
                     " Cd 1.2 long cylinder (Hoerner; White; from memory); allowable from the materials table")
         note = " (no spreaders.wall or inner_diameter: taken as a solid rod)" if wind.solid_pole else ""
         sf = wind.sf_spreader
-        st = WARN if sf < SF_SPREADER else PASS
+        st = FAIL if sf < SF_FAIL else WARN if sf < SF_SPREADER else PASS
         msg = (f"spreader {wind.worst_spreader}: {wind.spreader_stress_mpa:.0f} MPa at the socket mouth in"
                f" {speed_text(wind.speed_m_s, self.cfg.units)} against {wind.spreader_allowable_mpa:.0f} MPa"
                f" ({self.cfg.loads.spreader_material}){note}: safety factor {sf:.2f}")
@@ -482,7 +484,7 @@ class _Rules:
                    ": a stiffer or thicker-walled pole, shorter spreaders, or lower it before storms"
         out.append(RuleResult("wind-spreader", st, sf, SF_SPREADER, "SF", msg, src_pole))
         sf = wind.sf_bearing
-        st = WARN if sf < SF_BEARING else PASS
+        st = FAIL if sf < SF_FAIL else WARN if sf < SF_BEARING else PASS
         msg = (f"pole on the socket walls: {wind.bearing_pressure_mpa:.1f} MPa peak against"
                f" {wind.hub_bearing_allowable_mpa:g} MPa in {self.mat.name}: safety factor {sf:.2f}")
         if st != PASS:
@@ -497,7 +499,7 @@ class _Rules:
                                      else " set-screw hold not estimated"), COMMON))
         else:
             sf = wind.sf_set_screw
-            st = WARN if sf < SF_SET_SCREW else PASS
+            st = FAIL if sf < SF_FAIL else WARN if sf < SF_SET_SCREW else PASS
             msg = (f"axial pull {wind.set_screw_pull_n:.0f} N per pole against about"
                    f" {wind.set_screw_capacity_n:.0f} N held by its set screws: safety factor {sf:.2f}")
             if st != PASS:

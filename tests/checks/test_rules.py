@@ -13,7 +13,7 @@ import pytest
 
 from generators.errors import UserError
 from generators.plan.rules import evaluate, estimate_volume_mm3
-from helpers import INCH, METRIC, checks_for, demo, modified, rule
+from helpers import INCH, INCH_CASE, METRIC, METRIC_CASE, checks_for, demo, modified, rule
 
 GEOMETRIC = ("socket-wall", "socket-web", "socket-bore", "thread-engagement", "set-screw-length",
              "edge-distance", "socket-depth", "socket-tilt", "sleeve-wall", "mass")
@@ -31,7 +31,7 @@ def test_demos_pass_every_design_rule(path):
 
 
 def test_rule_results_carry_every_key():
-    _, _, checks = checks_for(demo())
+    _, _, checks = checks_for(demo(METRIC_CASE))
     for r in checks.as_json()["rules"]:
         assert set(r) == {"id", "status", "value", "limit", "unit", "message", "source"}
         assert r["status"] in ("pass", "warn", "fail") and r["source"]
@@ -59,7 +59,7 @@ def test_socket_web_between_neighbours():
 def test_blind_socket_close_to_the_bore():
     # inch demo: 6 in across flats -> 76.2 mm to the flat; bore 39.37 mm; a 2.146 in socket
     # ends 76.2 - 54.51 = 21.69 mm from the axis, 2.0 mm outside the bore
-    _, _, checks = checks_for(modified(INCH, spreaders={"socket_depth": "2.146 in"}))
+    _, _, checks = checks_for(modified(INCH_CASE, spreaders={"socket_depth": "2.146 in"}))
     r = rule(checks, "socket-bore")
     assert r.status == "fail"
     assert r.value == pytest.approx(76.2 - 2.146 * 25.4 - 39.37 / 2, abs=0.01)
@@ -80,7 +80,7 @@ def test_set_screw_length_chosen_from_stock_by_hand():
     # (20 - 10.25) / cos(10 deg) above the axis (measured vertically in a socket tilted
     # 10 deg), so the gap to the pole is 13.10 mm; the longest ISO 4026 M6 stock length
     # (6, 8, 10, 12, 16 ... mm, from memory) not over it is 12 mm.
-    _, _, checks = checks_for(demo())
+    _, _, checks = checks_for(demo(METRIC_CASE))
     gap = 23.0 - (20.0 - 10.25) / math.cos(math.radians(10))
     f = checks.set_screws[0]
     assert f["gap_to_pole_mm"] == pytest.approx(gap, abs=1e-6)
@@ -134,7 +134,7 @@ def test_socket_tilt():
 
 
 def test_tilted_socket_breaking_out_of_a_crafted_body():
-    cfg, plan, _ = checks_for(demo())
+    cfg, plan, _ = checks_for(demo(METRIC_CASE))
     thin = dataclasses.replace(plan, body=dataclasses.replace(plan.body, thickness_mm=30.0))
     assert rule(evaluate(cfg, thin), "socket-tilt").status == "fail"
     assert rule(evaluate(cfg, thin), "socket-wall").status == "fail"

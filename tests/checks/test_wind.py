@@ -20,11 +20,11 @@ import pytest
 trapezoid = getattr(np, "trapezoid", None) or np.trapz  # renamed in numpy 2
 
 from generators.plan import loads
-from helpers import INCH, checks_for, demo, modified
+from helpers import INCH_CASE, METRIC_CASE, checks_for, demo, modified
 
 
 def test_metric_demo_by_hand():
-    _, _, checks = checks_for(demo())
+    _, _, checks = checks_for(demo(METRIC_CASE))
     w = checks.as_json()["wind"]
     rho, V, Cd = 1.225, 40.0, 1.2
     q = 0.5 * rho * V ** 2                                  # dynamic pressure: 980 Pa
@@ -45,7 +45,7 @@ def test_metric_demo_by_hand():
 
 
 def test_inch_demo_by_hand():
-    _, _, checks = checks_for(demo(INCH))
+    _, _, checks = checks_for(demo(INCH_CASE))
     w = checks.as_json()["wind"]
     V = 90 * 0.44704
     q = 0.5 * 1.225 * V ** 2
@@ -79,7 +79,7 @@ def test_second_moment_matches_numerical_integration():
 def test_wind_along_a_spreader_leaves_only_the_wire_share():
     # cross-flow principle (Hoerner): only the velocity across the pole makes drag, so a
     # horizontal wind along a pole raised 10 deg gives sin^2(10 deg) of the broadside drag
-    cfg, plan, checks = checks_for(demo())
+    cfg, plan, checks = checks_for(demo(METRIC_CASE))
     q = loads.dynamic_pressure(1.225, 40.0)
     L = [checks.wind.exposed_length_m] * len(plan.spreaders)
     along = loads.spreader_loads(cfg, plan, q, 0.0, L)[0]  # spreader 1 points to azimuth 0
@@ -92,7 +92,7 @@ def test_wind_along_a_spreader_leaves_only_the_wire_share():
 def test_bearing_pressure_follows_the_stated_model():
     # the rigid-post model of generators/plan/loads.py (common practice), worked by hand:
     # Mc = M + F a / 2; p = 6 Mc / (d a^2) + F / (d a)
-    _, plan, checks = checks_for(demo())
+    _, plan, checks = checks_for(demo(METRIC_CASE))
     w = checks.wind
     a = plan.hole("S1").depth_mm
     Mc = w.moment_at_hub_nm * 1000 + w.force_per_spreader_n * a / 2
@@ -102,7 +102,7 @@ def test_bearing_pressure_follows_the_stated_model():
 
 
 def test_set_screw_pull_and_hold():
-    _, _, checks = checks_for(demo())
+    _, _, checks = checks_for(demo(METRIC_CASE))
     w = checks.wind
     q = 980.0
     pull = q * 1.2 * 0.0016 * 5.5 + q * loads.CF_AXIAL * math.pi * 0.02 * w.exposed_length_m
