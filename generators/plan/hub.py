@@ -199,14 +199,21 @@ class _Planner:
             need = 2 * ((r_s + L.MIN_WEB_MM / 2) / math.sin(half))
             what = "bore" if sp.socket_depth == "to-bore" else "socket floor circle"
             raise UserError("spreaders.diameter", f"{self.N} sockets of {self.fmt(2 * r_s)} meet before the"
-                            f" {what} ({self.fmt(2 * r_i)} across): web {self.fmt(web)}",
+                            f" {what} ({self.fmt(2 * r_i)} across): "
+                            + (f"web {self.fmt(web)}" if web >= 0 else f"they overlap by {self.fmt(-web)}"),
                             f"a {what} of at least {self.fmt(need)} (hub.bore), fewer or thinner spreaders")
         rho_mid = (r_o + r_i) / 2
         z = lambda rho: self.T / 2 + (rho - rho_mid) * math.tan(e)  # noqa: E731
         top, bottom = z(r_o) + r_s / math.cos(e), z(r_i) - r_s / math.cos(e)
-        if top > self.T or bottom < 0:
-            raise UserError("spreaders.elevation", f"sockets tilted {sp.elevation:g} deg break out of the"
-                            f" {'top' if top > self.T else 'bottom'} face",
+        if top > self.T - L.MIN_WEB_MM or bottom < L.MIN_WEB_MM:
+            side = "top" if top - self.T > -bottom else "bottom"
+            if sp.elevation == 0:
+                need = 2 * r_s + 2 * L.MIN_WEB_MM
+                raise UserError("hub.thickness", f"{self.fmt(self.T)} leaves under {self.fmt(L.MIN_WEB_MM)}"
+                                f" of wall above and below the {self.fmt(2 * r_s)} sockets",
+                                f"at least {self.fmt(need)}, or thinner spreaders")
+            raise UserError("spreaders.elevation", f"sockets tilted {sp.elevation:g} deg break out of"
+                            f" (or come within {self.fmt(L.MIN_WEB_MM)} of) the {side} face",
                             "less elevation, a thicker hub (hub.thickness) or a shorter socket_depth")
         if self.body.style == "block":
             flat = self._socket_face(sp.first_azimuth)
@@ -286,6 +293,11 @@ class _Planner:
             else:
                 first = ss.position if ss.position is not None else depth / 3
                 positions = [first, first + (depth - first) / 2]
+                if positions[1] - positions[0] < 2 * r_d + L.MIN_WEB_MM:
+                    raise UserError("set_screws.position", f"the two set screws of each socket would be"
+                                    f" {self.fmt(positions[1] - positions[0])} apart, closer than their"
+                                    f" {self.fmt(2 * r_d)} pilots allow",
+                                    "a position nearer the outer face, a smaller thread or per_spreader = 1")
             for j, p in enumerate(positions):
                 hid = f"T{sock.spreader}" + ("" if ss.per_spreader == 1 else "ab"[j])
                 if not (r_d < p < depth - r_d):

@@ -128,12 +128,6 @@ def _skin_case(skin_mm: float, elevation: float) -> dict:
     return cfg
 
 
-XFAIL_SKIN = pytest.mark.xfail(strict=True, reason="generators/plan/hub.py:207 checks top > T and bottom < 0"
-                                " only: a tangent socket or a 0.05 mm skin passes the plan (and a tangent one"
-                                " then fails in the kernel with --force)")
-
-
-@XFAIL_SKIN
 @pytest.mark.parametrize("skin, elevation", [(0.0, 0), (0.05, 0), (0.0, 10), (0.05, 10)])
 def test_socket_touching_top_or_bottom_is_refused_by_the_plan(skin, elevation):
     from generators.config import parse_config
@@ -145,7 +139,6 @@ def test_socket_touching_top_or_bottom_is_refused_by_the_plan(skin, elevation):
     assert info.value.key in SKIN_KEYS
 
 
-@XFAIL_SKIN
 def test_tangent_socket_is_refused_cleanly_even_with_force(tmp_path):
     path = tmp_path / "hub.toml"
     path.write_text(tomlout.dumps(_skin_case(0.0, 0)), encoding="utf-8")
@@ -159,8 +152,6 @@ def test_tangent_socket_is_refused_cleanly_even_with_force(tmp_path):
     assert not out.exists() or not any(out.iterdir()), f"written: {list(out.iterdir())}"
 
 
-@pytest.mark.xfail(strict=True, reason="generators/plan/hub.py _set_screws: no check between the"
-                   " two pilots of one socket (per_spreader = 2)")
 def test_two_set_screws_of_one_socket_that_merge_are_refused():
     """Two #10-24 pilots (0.154 in tap drill) a few mm apart along one socket would run
     into each other; like any two cuts they need the 1.5 mm least web (README hard limits)."""
@@ -169,7 +160,9 @@ def test_two_set_screws_of_one_socket_that_merge_are_refused():
     from generators.plan.hub import build_plan
 
     cfg = demo("inch-demo")
-    cfg["set_screws"].update(per_spreader=2, position=1.75)  # second one halfway to the 2 in floor
+    depth = cfg["spreaders"]["socket_depth"]
+    # the second one goes halfway from the first to the socket floor: 0.1 in further on
+    cfg["set_screws"].update(per_spreader=2, position=depth - 0.2)
     with pytest.raises(UserError) as info:
         build_plan(parse_config(cfg))
     assert info.value.key.startswith("set_screws.")
