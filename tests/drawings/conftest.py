@@ -9,6 +9,7 @@ from __future__ import annotations
 import copy
 import pathlib
 import sys
+import tomllib
 from dataclasses import dataclass
 
 import pytest
@@ -42,6 +43,9 @@ def _a4_inch() -> dict:
 
 CASES = all_cases()
 CASES["big-block-inch"] = BIG_BLOCK_INCH
+# Frozen designs for the tests that expect particular drill, tap and pilot names.
+for _path in sorted((pathlib.Path(__file__).parent / "cases").glob("*.toml")):
+    CASES[_path.stem] = tomllib.loads(_path.read_text(encoding="utf-8"))
 CASES["quad-emt-a4"] = _a4_inch()
 TILED = {"big-block-inch": "top", "tri-puck-30": "rim", "quad-puck-10": "rim"}
 

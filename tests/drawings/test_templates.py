@@ -156,7 +156,7 @@ def test_dxf_hole_table_and_scale_bars(templates, name):
 
 
 def test_dxf_inch_sheet_is_drawn_in_inches(templates):
-    t = templates("inch-demo")
+    t = templates("quad-emt-frozen")
     s = t.sheet("top")
     msp = ezdxf.readfile(t.folder / s["file"]).modelspace()
     bore = next(e for e in msp.query(f'CIRCLE[layer=="{S.HOLES}"]') if e.dxf.radius > 0.5)
@@ -288,7 +288,7 @@ def info_text(t, face: str) -> str:
 
 
 def test_drilling_order_in_shop_names_inch(templates):
-    t = templates("inch-demo")
+    t = templates("quad-emt-frozen")
     text = info_text(t, "top")
     steps = ["Centre-punch every crosshair", "Drill #23 (0.1540 in): T1, T2, T3, T4",
              "Tap #10-24 UNC: T1, T2, T3, T4", "Countersink 82 deg to 0.385 in across: FP1, FP2"]
@@ -308,7 +308,7 @@ def test_a_one_inch_drill_is_not_the_number_1_drill(templates):
 
 
 def test_drilling_order_metric_and_counterbore(templates):
-    t = templates("metric-demo")
+    t = templates("hex-portable-frozen")
     text = info_text(t, "top")
     assert "Drill 5.1 mm: T1, T2, T3, T4, T5, T6" in text and "Tap M6x1" in text and "Tap M5x0.8: FP1, FP2" in text
     assert "Pilot 6.5 mm: S1" in info_text(t, "flat-1")
@@ -318,7 +318,7 @@ def test_drilling_order_metric_and_counterbore(templates):
 
 
 def test_tilted_socket_has_entry_angle_direction_and_setup(templates):
-    t = templates("metric-demo")
+    t = templates("hex-portable-frozen")
     s = t.sheet("flat-1")
     msp = ezdxf.readfile(t.folder / s["file"]).modelspace()
     u, v = s["holes"]["S1"]
