@@ -46,6 +46,9 @@ TILT_MIN_DEG = 0.05
 PILOT_ABOVE_MM = {"mm": 10.0, "in": 3 / 8 * MM_PER_IN}
 PILOT_FRACTION = 1.0 / 3.0
 PILOT_MIN_MM = 3.0
+# A hole with no stock drill of its size is drilled with the largest drill under it and opened
+# up when that drill is at least 90 % of it; else it is cut (common practice).
+OPEN_UP_FRACTION = 0.9
 # The wrap strip runs on past the join by a glue tab that the start of the strip is laid over.
 GLUE_TAB_MM = 12.0
 # Clear space around the face outline for edge notes and spreader names.
@@ -586,6 +589,8 @@ class _SheetBuilder:
                 why = "spreader socket"
             elif h.kind == "bore":
                 why = "mast bore"
+            elif h.countersink is not None or h.counterbore is not None:
+                why = "screw clearance"
             else:
                 why = "plain hole"
             if h.drill:
@@ -594,18 +599,17 @@ class _SheetBuilder:
                                    f" ({why}){tilt}.")
             else:
                 under = largest_drill_under(h.diameter_mm, self.series)
-                from generators.standards.drills import drills
-                biggest = drills(self.series)[-1]
-                if under is None or h.diameter_mm > biggest.diameter_mm + 1e-9:
-                    big = 0.0
-                    drill_lines.append(f"Cut {self.fmt(h.diameter_mm)}: {id_list(ids)}, {depth} ({why}; larger than"
-                                       " any stock drill: hole saw, boring head or lathe, its pilot in the centre"
-                                       f" mark){tilt}.")
-                else:
+                if under is not None and under.diameter_mm >= OPEN_UP_FRACTION * h.diameter_mm:
                     big = under.diameter_mm
                     drill_lines.append(f"Drill {under.label(self.units)}, then open to {self.fmt(h.diameter_mm)}"
                                        f" with a boring head, reamer or step drill: {id_list(ids)}, {depth}"
                                        f" ({why}; no stock drill of that size){tilt}.")
+                else:
+                    big = 0.0
+                    tools = ("a hole saw, boring head or lathe, the hole saw's pilot in the centre mark" if h.through
+                             else "a Forstner bit, boring head or lathe, centred on the crosshair")
+                    drill_lines.append(f"Cut {self.fmt(h.diameter_mm)}: {id_list(ids)}, {depth} ({why}; larger than"
+                                       f" the stock drills: {tools}){tilt}.")
             if big > PILOT_ABOVE_MM[self.units] + 1e-9:
                 p = pilot_drill(big, self.series)
                 pilots.setdefault(p.label(self.units), []).extend(ids)

@@ -312,6 +312,9 @@ def test_drilling_order_metric_and_counterbore(templates):
     text = info_text(t, "top")
     assert "Drill 5.1 mm: T1, T2, T3, T4, T5, T6" in text and "Tap M6x1" in text and "Tap M5x0.8: FP1, FP2" in text
     assert "Pilot 6.5 mm: S1" in info_text(t, "flat-1")
+    # 51 mm is past the 32 mm metric set: cut, not drilled; 20.5 mm is a stock drill
+    assert "Cut 51 mm: bore, through (mast bore; larger than the stock drills: a hole saw" in text
+    assert "Drill 20.5 mm: S1" in info_text(t, "flat-1")
     oct_ = templates("oct-block-inch")
     bottom = info_text(oct_, "bottom")
     assert "Counterbore" in bottom and "CB2" in bottom and "Countersink 82 deg" in bottom
