@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import importlib
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
@@ -13,6 +12,7 @@ from generators.output import atomic_folder
 from generators.plan.hub import build_plan
 from generators.plan.model import HubPlan
 from generators.report.manifest import plan_record, write_manifest
+from generators.writers import run_writers
 
 # Each writer is "module:function", called with the BuildContext in this order. A
 # writer adds files to ctx.folder, sections to ctx.manifest and lines to ctx.summary.
@@ -24,6 +24,7 @@ WRITERS: tuple[str, ...] = (
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
     "generators.drawings.writer:write_templates",
+    "generators.drawings.sleeve:write_sleeve_templates",
     "generators.report.writer:write_report",
 )
 
@@ -94,11 +95,6 @@ def check_summary(checks: dict[str, Any]) -> list[str]:
     return lines
 
 
-def _call(spec: str, ctx: BuildContext) -> None:
-    module, func = spec.split(":")
-    getattr(importlib.import_module(module), func)(ctx)
-
-
 def build(config_path: str | Path, out: str | Path | None = None, **options: Any) -> BuildResult:
     """Build everything for one config; nothing is written unless all of it succeeds."""
     cfg = load_config(config_path)
@@ -115,8 +111,7 @@ def build_config(cfg: Config, out: str | Path | None = None, config_path: Path |
             ctx = BuildContext(config=cfg, plan=plan, folder=tmp, config_path=config_path, options=options)
             ctx.manifest["checks"] = checks
             ctx.summary.extend(check_summary(checks))
-            for spec in WRITERS:
-                _call(spec, ctx)
+            run_writers(WRITERS, ctx)
             record = plan_record(plan, ctx.volume_mm3)
             record.update(ctx.manifest)
             manifest = write_manifest(tmp, record)
