@@ -60,6 +60,35 @@ def configs(draw):
     return data
 
 
+def drawing_mismatches(folder, manifest) -> list[str]:
+    """Holes whose DXF circle is missing, doubled, misplaced or the wrong size (ezdxf read-back)."""
+    import ezdxf
+
+    from generators.drawings.sheet import HOLES
+    from tests.drawings.test_templates import expected_uv
+
+    bad = []
+    by_id = {h["id"]: h for h in manifest["holes"]}
+    faces_with_holes = {h["face"] for h in manifest["holes"]}
+    drawn = {rec["face"] for rec in manifest.get("templates", [])}
+    if manifest["hub"]["process"] == "machined" and drawn != faces_with_holes:
+        bad.append(f"faces drawn {sorted(drawn)} != faces with holes {sorted(faces_with_holes)}")
+    for rec in manifest.get("templates", []):
+        k = 25.4 if rec["dxf_units"] == "in" else 1.0
+        circles = [e for e in ezdxf.readfile(folder / rec["file"]).modelspace() if e.dxf.layer == HOLES]
+        on_face = [h for h in manifest["holes"] if h["face"] == rec["face"]]
+        if len(circles) != len(on_face):
+            bad.append(f"{rec['face']}: {len(circles)} circles for {len(on_face)} holes")
+        for h in on_face:
+            hid = h["id"]
+            u, v = expected_uv(rec, h["entry_mm"])  # from the frame and the 3D entry point alone
+            hits = [c for c in circles if abs(c.dxf.center.x * k - u) < 0.01 and abs(c.dxf.center.y * k - v) < 0.01
+                    and abs(2 * c.dxf.radius * k - by_id[hid]["diameter_mm"]) < 0.01]
+            if len(hits) != 1:
+                bad.append(f"{rec['face']}:{hid}")
+    return bad
+
+
 def _accepted(data):
     try:
         return build_plan(parse_config(data))
@@ -82,6 +111,7 @@ def test_accepted_configs_build_valid_parts(tmp_path_factory, data):
     assert mesh.is_watertight
     assert abs(mesh.volume - solids[0].Volume()) <= 0.005 * solids[0].Volume()
     assert hole_voids(solids[0], manifest) == []
+    assert drawing_mismatches(result.folder, manifest) == []
     # material just inside the body at mid-height on the outer face between sockets 1 and 2
     import math
 
