@@ -75,4 +75,7 @@ def _jig_dxf(jig: JigPlan, path: Path, units_note: str) -> None:
     for i, text in enumerate(notes):
         msp.add_text(text, height=3.5, dxfattribs={"layer": "NOTES"}).set_placement(
             (f3[0], y_top - 12 - 6 * i))
+    from generators.drawings.dxf import stable_classes
+
+    stable_classes(doc)
     doc.saveas(path)

@@ -128,11 +128,11 @@ def write_sheet_dxf(sheet: S.Sheet, path: Path, heading: str) -> None:
                     w.text(S.NOTES, (tx, y), part, TABLE_TEXT_MM)
                     y -= TABLE_ROW_MM
             y -= TABLE_ROW_MM
-        _stable_classes(w.doc)
+        stable_classes(w.doc)
         w.doc.saveas(path)
 
 
-def _stable_classes(doc) -> None:
+def stable_classes(doc) -> None:
     """Sort the CLASSES section: ezdxf adds the classes in use from a set, whose order changes
     with Python's hash seed, and the same sheet would write different bytes run to run."""
     doc.classes.add_required_classes(doc.dxfversion)
