@@ -1,7 +1,8 @@
-"""Isometric preview PNG of the hub from its STL (matplotlib, Agg), flat-shaded.
+"""Isometric preview PNG of the hub from its STL, flat-shaded, drawn with Pillow.
 
 The mesh is projected orthographically, back faces are dropped and the rest painted far
-to near; good enough for a picture of a convex-ish block with holes.
+to near; good enough for a picture of a convex-ish block with holes. Pillow (already
+there for the drawings) keeps the plotting library out of the CAD process.
 """
 
 from __future__ import annotations
@@ -36,11 +37,7 @@ def _frame():
 def render_preview(stl: Path, png: Path, title: str, labels: dict[str, tuple] | None = None,
                    size_in: tuple[float, float] = (6.0, 4.5), dpi: int = 110) -> None:
     """Write ``png``: the hub seen from above and to the side, hole labels where visible."""
-    import matplotlib
-
-    matplotlib.use("Agg")
-    import matplotlib.pyplot as plt
-    from matplotlib.collections import PolyCollection
+    from PIL import Image, ImageDraw, ImageFont
 
     tris = read_stl(stl)
     view, right, up = _frame()
@@ -56,29 +53,31 @@ def render_preview(stl: Path, png: Path, title: str, labels: dict[str, tuple] | 
     xy = np.stack([tris @ right, tris @ up], axis=-1)
     light = np.array(LIGHT) / np.linalg.norm(LIGHT)
     shade = 0.35 + 0.65 * np.clip(normals @ light, 0.0, 1.0)
-    colors = np.clip(np.array(BASE_RGB)[None, :] * shade[:, None], 0, 1)
+    colors = (np.clip(np.array(BASE_RGB)[None, :] * shade[:, None], 0, 1) * 255).round().astype(int)
 
-    fig = plt.figure(figsize=size_in, dpi=dpi)
-    ax = fig.add_axes((0.02, 0.02, 0.96, 0.88))
-    ax.add_collection(PolyCollection(xy, facecolors=colors, edgecolors=colors, linewidths=0.3))
+    W, H = int(size_in[0] * dpi), int(size_in[1] * dpi)
+    top, margin = int(0.1 * H), int(0.04 * W)
+    lo, hi = xy.reshape(-1, 2).min(axis=0), xy.reshape(-1, 2).max(axis=0)
+    k = min((W - 2 * margin) / (hi[0] - lo[0]), (H - top - margin) / (hi[1] - lo[1]))
+    off = np.array([(W - k * (hi[0] - lo[0])) / 2, top + (H - top - margin - k * (hi[1] - lo[1])) / 2])
+
+    def px(p):  # model (right, up) -> pixel (x right, y down)
+        return off[0] + k * (p[..., 0] - lo[0]), off[1] + k * (hi[1] - p[..., 1])
+
+    img = Image.new("RGB", (W, H), "white")
+    draw = ImageDraw.Draw(img)
+    X, Y = px(xy)
+    for x, y, c in zip(X.tolist(), Y.tolist(), colors.tolist()):
+        col = tuple(c)
+        draw.polygon(list(zip(x, y)), fill=col, outline=col)
+    font = ImageFont.load_default(size=max(9, dpi // 9))
+    small = ImageFont.load_default(size=max(9, dpi // 10))
+    draw.text((W / 2, top / 2), title, fill="black", font=font, anchor="mm")
     for text, p in (labels or {}).items():
         q = np.asarray(p, dtype=float)
-        ax.annotate(text, (q @ right, q @ up), xytext=(7, 7), textcoords="offset points", fontsize=7,
-                    color="#8b0000", ha="left", va="bottom",
-                    bbox={"boxstyle": "round,pad=0.1", "fc": "white", "ec": "none", "alpha": 0.75},
-                    arrowprops={"arrowstyle": "-", "color": "#8b0000", "lw": 0.5})
-    lo, hi = xy.reshape(-1, 2).min(axis=0), xy.reshape(-1, 2).max(axis=0)
-    pad = 0.05 * (hi - lo).max()
-    ax.set_xlim(lo[0] - pad, hi[0] + pad)
-    ax.set_ylim(lo[1] - pad, hi[1] + pad)
-    ax.set_aspect("equal")
-    ax.axis("off")
-    fig.suptitle(title, fontsize=10)
-    fig.savefig(png, dpi=dpi, metadata={"Software": None})
-    plt.close(fig)
-
-
-def visible(point, outward) -> bool:
-    """Whether a point on a face with this outward normal faces the viewer."""
-    view, _, _ = _frame()
-    return float(np.dot(outward, view)) > 0.05
+        x, y = px(np.array([q @ right, q @ up]))
+        draw.line([(x, y), (x + 7, y - 7)], fill=(139, 0, 0), width=1)
+        box = draw.textbbox((x + 8, y - 8), text, font=small, anchor="lb")
+        draw.rectangle(box, fill="white")
+        draw.text((x + 8, y - 8), text, fill=(139, 0, 0), font=small, anchor="lb")
+    img.save(png, format="PNG")
