@@ -81,3 +81,9 @@ def render_preview(stl: Path, png: Path, title: str, labels: dict[str, tuple] | 
         draw.rectangle(box, fill="white")
         draw.text((x + 8, y - 8), text, fill=(139, 0, 0), font=small, anchor="lb")
     img.save(png, format="PNG")
+
+
+def visible(point, outward) -> bool:
+    """Whether a point on a face with this outward normal faces the viewer."""
+    view, _, _ = _frame()
+    return float(np.dot(outward, view)) > 0.05
