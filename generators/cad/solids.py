@@ -85,8 +85,8 @@ def _hex_slot(hole: Hole) -> cq.Solid:
 def hub_solid(plan: HubPlan) -> cq.Solid:
     """The finished hub as one solid."""
     body = body_solid(plan.body)
-    cutters = [c for h in plan.holes for c in hole_cutters(h)]
     try:
+        cutters = [c for h in plan.holes for c in hole_cutters(h)]
         result = body.cut(*cutters).clean()
         return single_solid(result, "hub")
     except Exception:  # the kernel raises bare StdFail/OCP errors: find the hole that fails
