@@ -70,6 +70,8 @@ class CutCase:
 
 
 def tip_radius_mm(cfg: Config) -> float | None:
+    """Mast axis to the tip, horizontally: ``tip_radius``, or from ``tip_spacing`` between
+    neighbouring tips of a regular polygon, R = s / (2 sin(pi / n))."""
     sp = cfg.spreaders
     if sp.tip_radius is not None:
         return sp.tip_radius

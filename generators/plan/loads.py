@@ -48,6 +48,7 @@ import math
 from dataclasses import dataclass
 
 from generators.config.models import Config
+from generators.plan.cutlist import tip_radius_mm
 from generators.plan.model import HubPlan
 
 # Cd of a long circular cylinder, subcritical Reynolds numbers (Hoerner "Fluid-Dynamic
@@ -126,17 +127,6 @@ def dynamic_pressure(rho: float, v: float) -> float:
 def tube_second_moment(od_mm: float, id_mm: float) -> float:
     """I = pi (D^4 - d^4) / 64 in mm^4 (Roark, hollow circle)."""
     return math.pi * (od_mm ** 4 - id_mm ** 4) / 64.0
-
-
-def tip_radius_mm(cfg: Config) -> float | None:
-    """Mast axis to the tip, horizontally: ``tip_radius``, or from ``tip_spacing`` between
-    neighbouring tips of a regular polygon, R = s / (2 sin(pi / n))."""
-    sp = cfg.spreaders
-    if sp.tip_radius is not None:
-        return sp.tip_radius
-    if sp.tip_spacing is not None:
-        return sp.tip_spacing / (2.0 * math.sin(math.pi / sp.count))
-    return None
 
 
 def pole_bore_mm(cfg: Config) -> float | None:
