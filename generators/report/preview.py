@@ -26,6 +26,18 @@ def read_stl(path: Path) -> np.ndarray:
     return np.frombuffer(data, dtype=rec, count=n, offset=84)["v"].astype(np.float64)
 
 
+def _split_long(tris: np.ndarray, parts: float = 12.0) -> np.ndarray:
+    """Split long triangles (the fans of the flat faces) so far-to-near painting by centroid
+    does not let a long triangle cover a nearer one."""
+    import trimesh
+
+    size = float(np.ptp(tris.reshape(-1, 3), axis=0).max())
+    verts = tris.reshape(-1, 3)
+    faces = np.arange(len(verts)).reshape(-1, 3)
+    v, f = trimesh.remesh.subdivide_to_size(verts, faces, max_edge=size / parts, max_iter=8)
+    return v[f]
+
+
 def _frame():
     az, el = np.radians(VIEW_AZIMUTH_DEG), np.radians(VIEW_ELEVATION_DEG)
     view = np.array([np.cos(el) * np.cos(az), np.cos(el) * np.sin(az), np.sin(el)])  # towards the eye
@@ -39,7 +51,7 @@ def render_preview(stl: Path, png: Path, title: str, labels: dict[str, tuple] | 
     """Write ``png``: the hub seen from above and to the side, hole labels where visible."""
     from PIL import Image, ImageDraw, ImageFont
 
-    tris = read_stl(stl)
+    tris = _split_long(read_stl(stl))
     view, right, up = _frame()
     normals = np.cross(tris[:, 1] - tris[:, 0], tris[:, 2] - tris[:, 0])
     lengths = np.linalg.norm(normals, axis=1)
