@@ -85,11 +85,21 @@ def _stable_uuids(xml: bytes, digest: str) -> bytes:
     return _UUID.sub(repl, xml)
 
 
+# STL and STEP volumes must agree within this fraction, or the mesh has lost material
+# (a seam or a missing face) and the part is refused.
+VOLUME_AGREEMENT = 0.005
+
+
 def write_solid_files(solid: cq.Shape, folder: Path, stem: str, tolerance: float,
                       angular_deg: float) -> dict[str, float]:
-    """STEP, STL and 3MF of one solid; returns volumes for the manifest and checks."""
+    """STEP, STL and 3MF of one solid, the mesh checked against the solid's volume;
+    returns both volumes for the manifest."""
     write_step(solid, folder / f"{stem}.step")
     mesh = mesh_of(solid, tolerance, angular_deg, feature=stem)
+    v_solid, v_mesh = float(solid.Volume()), float(mesh.volume)
+    if abs(v_mesh - v_solid) > VOLUME_AGREEMENT * v_solid:
+        raise KernelError(stem, f"the mesh volume ({v_mesh:.0f} mm3) disagrees with the solid"
+                          f" ({v_solid:.0f} mm3)", "a bug: please report it with the saved config")
     write_stl(mesh, folder / f"{stem}.stl")
     write_3mf(mesh, folder / f"{stem}.3mf")
-    return {"solid_volume_mm3": float(solid.Volume()), "mesh_volume_mm3": float(mesh.volume)}
+    return {"solid_volume_mm3": v_solid, "mesh_volume_mm3": v_mesh}

@@ -4,8 +4,6 @@ from __future__ import annotations
 
 from generators.cad.export import write_solid_files
 from generators.cad.reducer import sleeve_solid
-from generators.cad.writer import VOLUME_AGREEMENT
-from generators.errors import UserError
 from generators.plan.reducer import SleevePlan
 from generators.report.cutlist_writer import previous_manifest, sleeves_for
 from generators.report.manifest import hole_record, sha256
@@ -43,10 +41,7 @@ def write_reducers(ctx) -> None:
     for s in sleeves:
         solid = sleeve_solid(s)
         vols = write_solid_files(solid, ctx.folder, s.stem, out.tolerance, out.angular_tolerance)
-        v_solid, v_mesh = vols["solid_volume_mm3"], vols["mesh_volume_mm3"]
-        if abs(v_mesh - v_solid) > VOLUME_AGREEMENT * v_solid:
-            raise UserError(s.key, f"the {s.stem} mesh volume ({v_mesh:.0f} mm3) disagrees with the solid"
-                            f" ({v_solid:.0f} mm3)", "report it with the config")
+        v_solid = vols["solid_volume_mm3"]
         files = [f"{s.stem}.{ext}" for ext in ("step", "stl", "3mf")]
         records.append(sleeve_record(s, files, v_solid))
         extras = [w for w, on in (("flange", s.flange), ("slit", s.slit), ("flat", s.key_flat)) if on]

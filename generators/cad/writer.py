@@ -4,11 +4,6 @@ from __future__ import annotations
 
 from generators.cad.export import write_solid_files
 from generators.cad.solids import hub_solid
-from generators.errors import KernelError
-
-# STL and STEP volumes must agree within this fraction, or the mesh has lost material
-# (a seam or a missing face) and the build is refused.
-VOLUME_AGREEMENT = 0.005
 
 
 def write_hub(ctx) -> None:
@@ -16,9 +11,6 @@ def write_hub(ctx) -> None:
     solid = hub_solid(ctx.plan)
     vols = write_solid_files(solid, ctx.folder, "hub", out.tolerance, out.angular_tolerance)
     v_solid, v_mesh = vols["solid_volume_mm3"], vols["mesh_volume_mm3"]
-    if abs(v_mesh - v_solid) > VOLUME_AGREEMENT * v_solid:
-        raise KernelError("hub", f"the mesh volume ({v_mesh:.0f} mm3) disagrees with the solid"
-                        f" ({v_solid:.0f} mm3)", "a bug: please report it with the saved config")
     ctx.volume_mm3 = v_solid
     ctx.manifest["mesh"] = {"tolerance_mm": out.tolerance, "angular_tolerance_deg": out.angular_tolerance,
                             "stl_volume_mm3": round(v_mesh, 1)}
