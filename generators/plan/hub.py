@@ -146,7 +146,8 @@ class _Planner:
             faces.append(Face(id="rim", kind="rim", origin=(0.0, 0.0, 0.0), normal=(1.0, 0.0, 0.0),
                               u_axis=(0.0, 1.0, 0.0), v_axis=(0.0, 0.0, 1.0),
                               outline=((0.0, 0.0), (C, 0.0), (C, T), (0.0, T)),
-                              label="rim, unrolled from azimuth 0 counter-clockwise seen from above"))
+                              label="rim, unrolled from azimuth 0 counter-clockwise seen from above",
+                              rim_radius_mm=body.diameter_mm / 2))
             return faces
         n, a = body.sides, body.outer_radius_mm
         leg = body.corner_chamfer_mm / (2 * math.cos(math.pi / n))
@@ -261,11 +262,11 @@ class _Planner:
     def _series_for(self, thread):
         from generators.standards.drills import default_series
 
-        if self.cfg.shop.drills:
-            return tuple(self.cfg.shop.drills)
-        if thread is not None:
+        from generators.plan.shop import drill_series
+
+        if thread is not None and not self.cfg.shop.drills:
             return default_series(thread)
-        return ("fractional", "number", "letter") if self.units == "in" else ("metric",)
+        return drill_series(self.cfg)
 
     def _mat_class(self) -> str:
         return material_class(self.cfg.hub.material)

@@ -7,8 +7,7 @@ counter-clockwise seen from above. Millimetres and degrees.
 from __future__ import annotations
 
 import math
-from dataclasses import asdict, dataclass, field
-from typing import Any
+from dataclasses import dataclass, field
 
 from generators.plan.geometry import Pt, Vec
 
@@ -38,7 +37,7 @@ class Hole:
     """
 
     id: str
-    kind: str  # bore | socket | set_screw | clamp | extra | nut_pocket | insert_pocket
+    kind: str  # a generators.plan.kinds.HoleKind value
     face: str
     entry_mm: Vec
     axis: Vec
@@ -100,6 +99,7 @@ class Face:
     outline: tuple[Pt, ...]
     azimuth_deg: float | None = None
     label: str = ""
+    rim_radius_mm: float | None = None  # rim only: radius of the surface its holes are drilled on
 
     def to_face(self, p: Vec) -> Pt:
         d = (p[0] - self.origin[0], p[1] - self.origin[1], p[2] - self.origin[2])
@@ -180,7 +180,3 @@ class HubPlan:
     def holes_on(self, face_id: str) -> list[Hole]:
         return [h for h in self.holes if h.face == face_id]
 
-
-def to_data(obj: Any) -> Any:
-    """Plain JSON-ready data (dicts, lists, floats) from plan dataclasses."""
-    return asdict(obj)

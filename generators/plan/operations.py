@@ -1,0 +1,258 @@
+"""The shop operations of a plan: for each face, one ordered list of what to do to it.
+
+Machined hubs: mark from the template, centre-punch, then in three stages (the bore, the
+sockets, then the holes that break into them) pilot, drill, open up or cut, and finally
+tap, countersink and counterbore. Printed hubs: print, clear, check with a caliper, fit the
+nuts or press the inserts. The templates, the report's schedule and the manifest's
+``operations`` are all rendered from this one list, so they cannot disagree.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from generators.plan.geometry import dot
+from generators.plan.kinds import POCKET_KINDS, HoleKind
+from generators.plan.model import Hole, HubPlan
+from generators.plan.shop import PILOT_ABOVE_MM, cutter_for, drill_label, needs_pilot, pilot_drill
+from generators.units import format_length
+
+# Stages: marking, then the bore, the sockets, and last the holes that break into them.
+STAGE_MARK, STAGE_BORE, STAGE_SOCKETS, STAGE_HOLES = 0, 1, 2, 3
+STAGE_NAMES = {STAGE_MARK: "mark", STAGE_BORE: "bore", STAGE_SOCKETS: "sockets", STAGE_HOLES: "holes"}
+# A hole is tilted when its axis leans more than this from square to its face.
+TILT_MIN_DEG = 0.05
+
+
+@dataclass(frozen=True)
+class Operation:
+    """One step on one face."""
+
+    face: str
+    step: int
+    operation: str  # mark | centre_punch | pilot | drill | open_up | cut | tap | countersink |
+    # counterbore | print | clear | check | fit_nut | press_insert
+    holes: tuple[str, ...]
+    tool: str
+    tool_diameter_mm: float | None
+    depth_mm: float | None
+    through: bool
+    stage: int
+    tilt_deg: float | None = None
+    note: str = ""
+
+    def record(self) -> dict:
+        r = lambda x: None if x is None else round(float(x), 4)  # noqa: E731
+        return {"face": self.face, "step": self.step, "operation": self.operation, "holes": list(self.holes),
+                "tool": self.tool, "tool_diameter_mm": r(self.tool_diameter_mm),
+                "depth_mm": r(self.depth_mm), "through": self.through, "stage": STAGE_NAMES[self.stage],
+                "tilt_deg": r(self.tilt_deg), "note": self.note}
+
+
+def stage_of(h: Hole) -> int:
+    return {HoleKind.BORE: STAGE_BORE, HoleKind.SOCKET: STAGE_SOCKETS}.get(h.kind, STAGE_HOLES)
+
+
+def hole_tilt_deg(plan: HubPlan, h: Hole) -> float:
+    """Angle between the hole axis and square to its face at the entry (a rim's is radial)."""
+    face = plan.face(h.face)
+    if face.kind == "rim":
+        t = math.atan2(h.entry_mm[1], h.entry_mm[0])
+        n = (math.cos(t), math.sin(t), 0.0)
+    else:
+        n = face.normal
+    c = max(-1.0, min(1.0, -dot(h.axis, n)))
+    deg = math.degrees(math.acos(c))
+    return 0.0 if deg < TILT_MIN_DEG else deg
+
+
+def faces_with_work(plan: HubPlan) -> list[str]:
+    used = {h.face for h in plan.holes}
+    return [f.id for f in plan.faces if f.id in used]
+
+
+def plan_operations(plan: HubPlan, cfg, series: tuple[str, ...], material_class: str) -> tuple[Operation, ...]:
+    """Every face's operations, faces in plan order, steps numbered per face from 1."""
+    out: list[Operation] = []
+    for face_id in faces_with_work(plan):
+        if plan.process == "printed":
+            out += _Printed(plan, cfg, face_id).ops()
+        else:
+            out += _Machined(plan, cfg, face_id, series, material_class).ops()
+    return tuple(out)
+
+
+class _Face:
+    def __init__(self, plan: HubPlan, cfg, face_id: str):
+        self.plan, self.cfg, self.face = plan, cfg, face_id
+        self.units = cfg.units
+        self.holes = plan.holes_on(face_id)
+        self.rows: list[dict] = []
+
+    def L(self, mm: float) -> str:
+        return format_length(mm, self.units, fractions=False)
+
+    def add(self, operation: str, holes, tool: str, tool_mm=None, depth=None, through=False,
+            stage=STAGE_HOLES, tilt=None, note: str = "") -> None:
+        self.rows.append(dict(operation=operation, holes=tuple(h.id if isinstance(h, Hole) else h for h in holes),
+                              tool=tool, tool_diameter_mm=tool_mm, depth_mm=depth, through=through,
+                              stage=stage, tilt_deg=tilt, note=note))
+
+    def ops(self) -> list[Operation]:
+        self.fill()
+        return [Operation(face=self.face, step=i + 1, **r) for i, r in enumerate(self.rows)]
+
+    def fill(self) -> None:  # pragma: no cover - overridden
+        raise NotImplementedError
+
+    def breaks_into(self, h: Hole) -> str:
+        if h.kind == HoleKind.SET_SCREW and h.spreader is not None:
+            sock = next((s.socket_hole for s in self.plan.spreaders if s.id == h.spreader), None)
+            return f"breaks into socket {sock}" if sock else ""
+        if h.kind == HoleKind.CLAMP:
+            return "breaks into the bore"
+        if h.kind == HoleKind.SOCKET and h.extend_mm > 0:
+            return "runs into the bore"
+        return ""
+
+
+class _Machined(_Face):
+    def __init__(self, plan, cfg, face_id, series, material_class):
+        super().__init__(plan, cfg, face_id)
+        self.series, self.mclass = series, material_class
+
+    def fill(self) -> None:
+        holes = self.holes
+        tilts = {h.id: hole_tilt_deg(self.plan, h) for h in holes}
+        first_bar = "4 in" if self.units == "in" else "100 mm"
+        other_bar = "100 mm" if self.units == "in" else "4 in"
+        self.add("mark", [], "1:1 template", stage=STAGE_MARK,
+                 note=f"check the {first_bar} bar (and the {other_bar} bar) with a rule, then tape the template"
+                      " on with its outline on the face's edges")
+        tilted = [h for h in holes if tilts[h.id] > 0]
+        self.add("centre_punch", holes, "centre punch or centre drill", stage=STAGE_MARK,
+                 note="with the work already tilted for the tilted holes" if tilted else "")
+        for stage in (STAGE_BORE, STAGE_SOCKETS, STAGE_HOLES):
+            group = [h for h in holes if stage_of(h) == stage]
+            if group:
+                self._cut_stage(group, stage, tilts)
+        self._finish(holes)
+
+    def _cut_stage(self, holes: list[Hole], stage: int, tilts: dict[str, float]) -> None:
+        plans = []
+        for h in sorted(holes, key=lambda x: (x.diameter_mm, x.id)):
+            depth = h.depth_mm
+            c = cutter_for(h.diameter_mm, h.drill, depth, h.through, self.mclass, self.series, self.units)
+            plans.append((h, c))
+        pilots: dict[tuple, list[Hole]] = {}
+        for h, c in plans:
+            first = c.drill.diameter_mm if c.drill is not None else h.diameter_mm
+            if needs_pilot(first, self.units):
+                p = pilot_drill(first, self.series)
+                pilots.setdefault((p.label(self.units), p.diameter_mm, self._depth_key(h)), []).append(h)
+        for (label, dia, (depth, through, tilt)), hs in pilots.items():
+            limit = format_length(PILOT_ABOVE_MM[self.units], self.units)
+            self.add("pilot", hs, label, dia, depth, through, stage, tilt, f"drills over {limit} need one")
+        groups: dict[tuple, list[tuple[Hole, object]]] = {}
+        for h, c in plans:
+            key = (c.method, c.drill.label(self.units) if c.drill else "", c.tool, round(h.diameter_mm, 4),
+                   self._depth_key(h))
+            groups.setdefault(key, []).append((h, c))
+        for (method, dlabel, tool, dia, (depth, through, tilt)), pairs in groups.items():
+            hs = [h for h, _ in pairs]
+            h0, c0 = pairs[0]
+            why = self._why(h0)
+            extra = "; ".join(x for x in (why, self.breaks_into(h0)) if x)
+            if method == "drill":
+                self.add("drill", hs, drill_label(h0.drill, h0.diameter_mm, self.units), c0.drill.diameter_mm,
+                         depth, through, stage, tilt, extra)
+            elif method == "open_up":
+                self.add("drill", hs, c0.drill.label(self.units), c0.drill.diameter_mm, depth, through, stage, tilt,
+                         "; ".join(x for x in (f"under size for {self.L(h0.diameter_mm)}", extra) if x))
+                self.add("open_up", hs, tool, h0.diameter_mm, depth, through, stage, tilt,
+                         "; ".join(x for x in (f"to {self.L(h0.diameter_mm)}", c0.note, extra) if x))
+            else:
+                self.add("cut", hs, tool, h0.diameter_mm, depth, through, stage, tilt,
+                         "; ".join(x for x in (f"{self.L(h0.diameter_mm)}", c0.note, extra) if x))
+
+    def _depth_key(self, h: Hole) -> tuple:
+        tilt = hole_tilt_deg(self.plan, h)
+        return (None if h.through else round(h.depth_mm, 4), h.through, round(tilt, 2) if tilt > 0 else None)
+
+    def _why(self, h: Hole) -> str:
+        if h.thread:
+            return f"tap drill for {h.thread}"
+        if h.kind == HoleKind.SOCKET:
+            return "spreader socket"
+        if h.kind == HoleKind.BORE:
+            return "mast bore"
+        if h.countersink is not None or h.counterbore is not None:
+            return "screw clearance"
+        return "plain hole"
+
+    def _finish(self, holes: list[Hole]) -> None:
+        taps: dict[tuple, list[Hole]] = {}
+        for h in holes:
+            if h.thread and h.kind not in POCKET_KINDS:
+                depth = tap_depth_mm(h)
+                taps.setdefault((h.thread, None if h.through else round(depth, 4), h.through,
+                                 h.thread_percent), []).append(h)
+        for (thread, depth, through, pct), hs in taps.items():
+            blind = not through and all(h.kind == HoleKind.EXTRA for h in hs)
+            notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
+                     "tap straight, back off every turn to break the chip"]
+            self.add("tap", hs, f"{thread} tap", None, depth, through, STAGE_HOLES, None,
+                     "; ".join(x for x in notes if x))
+        sinks: dict[tuple, list[Hole]] = {}
+        for h in holes:
+            if h.countersink is not None:
+                sinks.setdefault(("countersink", f"{h.countersink.angle_deg:g} deg countersink",
+                                  h.countersink.diameter_mm, None), []).append(h)
+            if h.counterbore is not None:
+                sinks.setdefault(("counterbore", "counterbore (piloted) or end mill",
+                                  h.counterbore.diameter_mm, h.counterbore.depth_mm), []).append(h)
+        for (op, tool, dia, depth), hs in sinks.items():
+            note = (f"to {self.L(dia)} across, screw head flush" if op == "countersink"
+                    else f"{self.L(dia)} across, head below the surface")
+            self.add(op, hs, tool, dia, depth, False, STAGE_HOLES, None, note)
+
+
+def tap_depth_mm(h: Hole) -> float:
+    """How deep a tapped hole is threaded (its whole drilled depth today)."""
+    return h.depth_mm
+
+
+class _Printed(_Face):
+    def fill(self) -> None:
+        holes = self.holes
+        if self.face == self._print_face():
+            self.add("print", [], "printer", stage=STAGE_MARK,
+                     note="print with the bottom face on the bed, as modelled; no support needed")
+        cleared = [h for h in holes if h.profile in ("teardrop", "hex") or h.kind in POCKET_KINDS]
+        if cleared:
+            self.add("clear", cleared, "deburring blade or hobby knife", stage=STAGE_HOLES,
+                     note="trim strings and any sag from teardrop roofs and nut slots")
+        round_ = [h for h in holes if h.kind not in POCKET_KINDS]
+        by_size: dict[float, list[Hole]] = {}
+        for h in round_:
+            by_size.setdefault(round(h.diameter_mm - h.compensation_mm, 4), []).append(h)
+        for designed, hs in sorted(by_size.items()):
+            comp = hs[0].compensation_mm
+            self.add("check", hs, "caliper", designed, None, False, stage_of(hs[0]), None,
+                     f"designed {self.L(designed)}" + (f" (modelled {self.L(designed + comp)} to print true)"
+                                                      if comp else ""))
+        for h in holes:
+            if h.kind == HoleKind.NUT_POCKET:
+                self.add("fit_nut", [h], h.nut or f"{h.thread} hex nut", h.across_flats_mm, None, False,
+                         STAGE_HOLES, None, f"for {h.serves}: push it in from the slot on the {h.face} face until it"
+                                            " lines up with the hole; a screw through pulls it home")
+            elif h.kind == HoleKind.INSERT_POCKET:
+                self.add("press_insert", [h], h.insert or f"{h.thread} heat-set insert", h.diameter_mm, h.depth_mm,
+                         False, STAGE_HOLES, None,
+                         f"for {h.serves}: press in square with a soldering iron and insert tip, about 220-250 C"
+                         " for PETG (common practice; follow the insert maker's figure), flush with the face")
+
+    def _print_face(self) -> str:
+        faces = faces_with_work(self.plan)
+        return "bottom" if "bottom" in faces else faces[0]
