@@ -61,7 +61,7 @@ def test_previously_wrong_values_fixed(size, close, loose):
 
 
 def test_sources_say_where_values_are_from_memory():
-    rows = {r["size"]: r for r in table("inch_clearance.csv")}
+    rows = {r["size"] if isinstance(r["size"], str) else f"{r['size']:g}": r for r in table("inch_clearance.csv")}
     for size, fits in B18_2_8_TABLE_1A.items():
         src = rows[size]["source"]
         assert src
