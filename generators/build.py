@@ -9,9 +9,8 @@ from typing import Any
 from generators.config import Config, load_config
 from generators.errors import DesignRuleError, KernelError, UserError
 from generators.output import atomic_folder
-from generators.plan.hub import build_plan
-from generators.plan.model import HubPlan
-from generators.report.manifest import plan_record, write_manifest
+from generators.design import Design, design
+from generators.manifest import plan_record, write_changes, write_manifest
 from generators.writers import run_writers
 
 # Each writer is "module:function", called with the BuildContext in this order. A
@@ -20,6 +19,7 @@ WRITERS: tuple[str, ...] = (
     "generators.cad.writer:write_hub",
     "generators.cad.extras_writer:write_print_checks",
     "generators.cad.extras_writer:write_jig",
+    "generators.drawings.jig_dxf:write_jig_drawing",
     "generators.cad.extras_writer:write_tip_cap",
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
@@ -31,14 +31,22 @@ WRITERS: tuple[str, ...] = (
 
 @dataclass
 class BuildContext:
-    config: Config
-    plan: HubPlan
+    design: Design
     folder: Path
     config_path: Path | None = None
     options: dict[str, Any] = field(default_factory=dict)
     manifest: dict[str, Any] = field(default_factory=dict)
     summary: list[str] = field(default_factory=list)
+    changes: dict[str, Any] = field(default_factory=dict)  # against the build this one replaces
     volume_mm3: float | None = None
+
+    @property
+    def config(self) -> Config:
+        return self.design.config
+
+    @property
+    def plan(self):
+        return self.design.plan
 
 
 @dataclass
@@ -71,13 +79,11 @@ def save_failed_config(cfg: Config, target: Path, config_path: Path | None) -> P
     return saved
 
 
-def design_checks(cfg: Config, plan: HubPlan, options: dict[str, Any]) -> dict[str, Any]:
+def design_checks(d: Design, force: bool) -> dict[str, Any]:
     """The design rules of ``check``; a failed rule stops the build unless ``force``."""
-    from generators.plan.rules import failed, run_checks
-
-    checks = run_checks(cfg, plan, tuple(options.get("masts") or ()))
-    bad = failed(checks)
-    if bad and not options.get("force"):
+    checks = d.checks_json
+    bad = d.failed()
+    if bad and not force:
         listed = "; ".join(f"{r['id']}: {r['message']}" for r in bad)
         raise DesignRuleError("checks", f"{len(bad)} design rule(s) failed, nothing written: {listed}",
                               "change the design, or build anyway with --force")
@@ -95,26 +101,43 @@ def check_summary(checks: dict[str, Any]) -> list[str]:
     return lines
 
 
-def build(config_path: str | Path, out: str | Path | None = None, **options: Any) -> BuildResult:
+def build(config_path: str | Path, out: str | Path | None = None, masts: tuple[str, ...] = (),
+          force: bool = False) -> BuildResult:
     """Build everything for one config; nothing is written unless all of it succeeds."""
     cfg = load_config(config_path)
-    return build_config(cfg, out, config_path=Path(config_path), **options)
+    return build_config(cfg, out, config_path=Path(config_path), masts=tuple(masts), force=force)
+
+
+def build_with_masts(config_path: str | Path, out: str | Path | None = None, masts: tuple[str, ...] = (),
+                     force: bool = False) -> BuildResult:
+    """Design the hub and every sleeve first (refusals before any file), then build."""
+    return build(config_path, out, masts=masts, force=force)
 
 
 def build_config(cfg: Config, out: str | Path | None = None, config_path: Path | None = None,
-                 **options: Any) -> BuildResult:
-    plan = build_plan(cfg)
-    checks = design_checks(cfg, plan, options)
+                 masts: tuple[str, ...] = (), force: bool = False) -> BuildResult:
+    d = design(cfg, masts)
+    return build_design(d, out, config_path=config_path, force=force)
+
+
+def build_design(d: Design, out: str | Path | None = None, config_path: Path | None = None,
+                 force: bool = False) -> BuildResult:
+    """Render one design into ``out/<name>/``: the writers only render it."""
+    cfg = d.config
+    checks = design_checks(d, force)
     target = output_folder(cfg, out)
     try:
         with atomic_folder(target) as tmp:
-            ctx = BuildContext(config=cfg, plan=plan, folder=tmp, config_path=config_path, options=options)
+            ctx = BuildContext(design=d, folder=tmp, config_path=config_path,
+                               options={"masts": d.masts, "force": force})
             ctx.manifest["checks"] = checks
+            ctx.manifest["operations"] = d.operation_records()
             ctx.summary.extend(check_summary(checks))
             run_writers(WRITERS, ctx)
-            record = plan_record(plan, ctx.volume_mm3)
+            record = plan_record(d.plan, ctx.volume_mm3)
             record.update(ctx.manifest)
             manifest = write_manifest(tmp, record)
+            write_changes(tmp, ctx.changes)
     except KernelError as exc:
         saved = save_failed_config(cfg, target, config_path)
         raise KernelError(exc.key, exc.problem, f"a bug: please report it with {saved}") from None

@@ -7,7 +7,6 @@ from pathlib import Path
 from generators.errors import UserError
 
 METRIC_DEMO = "six-spreader-portable.toml"
-INCH_DEMO = "four-spreader-conduit.toml"
 
 
 def configs_folder() -> Path | None:

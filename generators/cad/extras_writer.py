@@ -13,23 +13,20 @@ def _r(x: float) -> float:
 
 def write_jig(ctx) -> None:
     """jig.step, jig.stl and jig.dxf; ctx.manifest["jig"]."""
-    from generators.plan.jig import jig_plan, jig_reason
-
     plan, cfg = ctx.plan, ctx.config
-    jig = jig_plan(plan, cfg)
+    jig = ctx.design.jig
     if jig is None:
-        reason = jig_reason(plan, cfg)
+        reason = ctx.design.jig_reason
         if plan.process == "machined" and cfg.spreaders.elevation > 0:
             ctx.manifest["jig"] = {"made": False, "reason": reason}
             ctx.summary.append(f"  jig    none: {reason}")
         return
-    from generators.cad.jig import jig_solid, write_jig_dxf
+    from generators.cad.jig import jig_solid
 
     out = cfg.output
     solid = jig_solid(jig)
     write_step(solid, ctx.folder / "jig.step")
     write_stl(mesh_of(solid, out.tolerance, out.angular_tolerance, feature="jig"), ctx.folder / "jig.stl")
-    write_jig_dxf(jig, ctx.folder / "jig.dxf", f"Config units: {cfg.units}; drawing in mm, 1:1.")
     ctx.manifest["jig"] = {
         "made": True,
         "files": ["jig.step", "jig.stl", "jig.dxf"],
@@ -52,9 +49,7 @@ def write_jig(ctx) -> None:
 
 def write_tip_cap(ctx) -> None:
     """tipcap.stl and tipcap.3mf; ctx.manifest["tip_cap"]."""
-    from generators.plan.tipcap import tip_cap_plan
-
-    cap = tip_cap_plan(ctx.config)
+    cap = ctx.design.tip_cap
     if cap is None:
         return
     from generators.cad.printed import print_problems, threemf_unit

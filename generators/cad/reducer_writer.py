@@ -4,9 +4,8 @@ from __future__ import annotations
 
 from generators.cad.export import write_solid_files
 from generators.cad.reducer import sleeve_solid
+from generators.manifest import hole_record, previous_manifest, sha256
 from generators.plan.reducer import SleevePlan
-from generators.report.cutlist_writer import previous_manifest, sleeves_for
-from generators.report.manifest import hole_record, sha256
 from generators.units import format_both, format_length
 
 HUB_FILES = ("hub.step", "hub.stl", "hub.3mf")
@@ -34,7 +33,7 @@ def sleeve_record(s: SleevePlan, files: list[str], volume_mm3: float) -> dict:
 
 
 def write_reducers(ctx) -> None:
-    sleeves = sleeves_for(ctx)
+    sleeves = ctx.design.sleeves
     units = ctx.config.units
     out = ctx.config.output
     records = []
@@ -60,11 +59,13 @@ def write_reducers(ctx) -> None:
 
 def _compare_hub_files(ctx) -> None:
     """Say whether the hub files are byte-identical to the build this one replaces."""
-    prev = previous_manifest(ctx)
+    prev = previous_manifest(ctx.folder.parent, ctx.config.name)
     if not prev or not all((ctx.folder / f).is_file() for f in HUB_FILES):
         return
-    old = prev.get("files", {})
+    old = prev.get("files")
+    if not isinstance(old, dict):
+        return
     same = all(old.get(f) == sha256(ctx.folder / f) for f in HUB_FILES)
-    ctx.manifest["hub_unchanged"] = same
+    ctx.changes["hub_unchanged"] = same
     ctx.summary.append("  hub    files identical to the previous build" if same else
                        "  hub    changed since the previous build: make the hub again")

@@ -11,6 +11,8 @@ import json
 import sys
 import textwrap
 
+from generators.report.figures import figure
+
 CAUTION = ("The wind figures are an estimate, not a structural certification: follow local codes,"
            " the mast maker's ratings and licensed engineering practice; keep clear of power lines.")
 
@@ -18,25 +20,6 @@ CAUTION = ("The wind figures are an estimate, not a structural certification: fo
 def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("config", nargs="?", metavar="CONFIG", help="config file (default: the metric demo)")
     p.add_argument("--json", action="store_true", help="print the results as JSON")
-
-
-def figure(value, unit: str, units: str) -> str:
-    """A rule's figure as the shop reads it: lengths in the config's units."""
-    from generators.units import format_length
-
-    if value is None:
-        return "-"
-    if unit == "mm":
-        return format_length(value, units, fractions=False)
-    if unit == "x D":
-        return f"{value:.2f} x D"
-    if unit == "deg":
-        return f"{value:.1f} deg"
-    if unit == "g":
-        return f"{value:.0f} g"
-    if unit == "SF":
-        return f"SF {value:.2f}"
-    return f"{value:g} {unit}".strip()
 
 
 def wind_lines(wind: dict, units: str) -> list[str]:
@@ -76,13 +59,12 @@ def table(checks: dict, units: str, width: int = 100) -> str:
 def run(args: argparse.Namespace) -> int:
     from generators.config import load_config
     from generators.demos import default_config
-    from generators.plan.hub import build_plan
-    from generators.plan.rules import failed, run_checks, warned
+    from generators.design import design
+    from generators.plan.rules import failed, warned
 
     path = args.config or str(default_config())
     cfg = load_config(path)
-    plan = build_plan(cfg)
-    checks = run_checks(cfg, plan)
+    checks = design(cfg).checks_json
     bad = failed(checks)
     if args.json:
         json.dump(checks, sys.stdout, indent=2)

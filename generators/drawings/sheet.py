@@ -20,6 +20,8 @@ from typing import Any
 
 from generators.plan.geometry import Pt, Vec, dot
 from generators.plan.model import Face, Hole, HubPlan
+from generators.plan.operation_text import step_sentence
+from generators.plan.shop import drill_label, drill_series
 from generators.units import MM_PER_IN, format_length
 
 # Layers (DXF) and element kinds (PDF).
@@ -41,18 +43,8 @@ CROSS_EXTRA_MM = 4.0  # crosshair arms run this far past the hole circle
 DATUM_ARROW_MM = 8.0
 # A hole is tilted when its axis leans more than this from square to its face.
 TILT_MIN_DEG = 0.05
-# Drills over 10 mm (3/8 in in an inch shop) wander and grab unless a pilot goes first; the
-# pilot is about a third of the drill, never under 3 mm (common practice).
-PILOT_ABOVE_MM = {"mm": 10.0, "in": 3 / 8 * MM_PER_IN}
-PILOT_FRACTION = 1.0 / 3.0
-PILOT_MIN_MM = 3.0
-# A hole with no stock drill of its size is drilled with the largest drill under it and opened
-# up when that drill is at least 90 % of it; else it is cut (common practice).
-OPEN_UP_FRACTION = 0.9
 # The wrap strip runs on past the join by a glue tab that the start of the strip is laid over.
 GLUE_TAB_MM = 12.0
-# Clear space around the face outline for edge notes and spreader names.
-EDGE_GAP_MM = 4.0
 
 
 @dataclass(frozen=True)
@@ -165,52 +157,6 @@ def size(mm: float, units: str) -> str:
     return format_length(mm, units, fractions=False)
 
 
-def drill_series(cfg) -> tuple[str, ...]:
-    """The drill sets the shop has (``shop.drills``), else the config's system."""
-    if cfg.shop.drills:
-        return tuple(cfg.shop.drills)
-    return ("fractional", "number", "letter") if cfg.units == "in" else ("metric",)
-
-
-def drill_label(name: str, diameter_mm: float, units: str) -> str:
-    """The shop label of the plan's drill: ``#7 (0.2010 in)``, ``5/16 (0.3125 in)``, ``5.0 mm``.
-
-    Looked up by name and size together: a 1 in fractional drill is named ``1`` like the
-    number drill ``#1`` is found by ``"1"``."""
-    from generators.standards.drills import SERIES, drills, find_drill
-
-    for d in drills(SERIES):
-        if d.name == name and abs(d.diameter_mm - diameter_mm) <= 0.02:
-            return d.label(units)
-    return find_drill(name).label(units)
-
-
-def pilot_drill(diameter_mm: float, series: tuple[str, ...]):
-    """A pilot about a third of the drill from the shop's sets, on round sizes."""
-    from generators.standards.drills import drills
-
-    def round_size(d) -> bool:
-        if d.series == "metric":
-            return abs(d.diameter_mm * 2 - round(d.diameter_mm * 2)) < 1e-9
-        if d.series == "fractional":
-            return abs(d.diameter_in * 32 - round(d.diameter_in * 32)) < 1e-9
-        return True
-
-    target = max(diameter_mm * PILOT_FRACTION, PILOT_MIN_MM)
-    have = drills(series)
-    pool = ([d for d in have if d.series in ("metric", "fractional") and round_size(d)]
-            or [d for d in have if round_size(d)] or have)
-    under = [d for d in pool if d.diameter_mm <= target + 1e-9]
-    return under[-1] if under else pool[0]
-
-
-def largest_drill_under(diameter_mm: float, series: tuple[str, ...]):
-    from generators.standards.drills import drills
-
-    under = [d for d in drills(series) if d.diameter_mm < diameter_mm - 1e-9]
-    return under[-1] if under else None
-
-
 def id_list(ids: list[str]) -> str:
     return ", ".join(ids)
 
@@ -292,18 +238,22 @@ def faces_with_holes(plan: HubPlan) -> list[Face]:
     return [f for f in plan.faces if f.id in used]
 
 
-def build_sheets(plan: HubPlan, cfg) -> list[Sheet]:
-    return [_SheetBuilder(plan, cfg, f).build() for f in faces_with_holes(plan)]
+def build_sheets(plan: HubPlan, cfg, operations) -> list[Sheet]:
+    """One sheet a face with holes; its drilling order is the design's operations for it."""
+    return [_SheetBuilder(plan, cfg, f, [op for op in operations if op.face == f.id]).build()
+            for f in faces_with_holes(plan)]
 
 
 class _SheetBuilder:
-    def __init__(self, plan: HubPlan, cfg, face: Face):
+    def __init__(self, plan: HubPlan, cfg, face: Face, operations):
         self.plan, self.cfg, self.face = plan, cfg, face
+        self.operations = operations
         self.units = cfg.units
         self.series = drill_series(cfg)
         self.holes = plan.holes_on(face.id)
         if face.kind == "rim":
-            self.frame = Frame(face, plan.body.diameter_mm / 2, rim_join_azimuth(self.holes))
+            radius = face.rim_radius_mm if face.rim_radius_mm is not None else plan.body.diameter_mm / 2
+            self.frame = Frame(face, radius, rim_join_azimuth(self.holes))
         else:
             self.frame = Frame(face)
         self.items: list[Item] = []
@@ -330,7 +280,7 @@ class _SheetBuilder:
         self._tilt_insets(tilts, sheet.positions)
         sheet.items = self.items
         sheet.table = self._table(sheet.positions, tilts)
-        sheet.steps = self._steps(tilts)
+        sheet.steps = [step_sentence(op, self.units) for op in self.operations]
         sheet.notes = self._notes(tilts)
         return sheet
 
@@ -361,7 +311,7 @@ class _SheetBuilder:
         if f.kind in ("top", "bottom") and body.style == "puck":
             self.items.append(Circle(OUTLINE, (0.0, 0.0), body.diameter_mm / 2))
         elif f.kind == "rim":
-            C, T = math.pi * body.diameter_mm, body.thickness_mm
+            C, T = 2 * math.pi * self.frame.radius_mm, max(p[1] for p in f.outline)
             self.items.append(Poly(OUTLINE, ((0.0, 0.0), (C, 0.0), (C, T), (0.0, T))))
             self._wrap_marks(C, T)
         else:
@@ -566,75 +516,6 @@ class _SheetBuilder:
                          axis))
         return rows
 
-    def _steps(self, tilts: dict[str, Tilt]) -> list[str]:
-        steps = ["Check the 100 mm and 4 in bars with a rule, then tape the template on with its outline on the"
-                 " face's edges.",
-                 "Centre-punch every crosshair (or spot each with a centre drill)"
-                 + (", with the work already tilted for the tilted holes." if tilts else ".")]
-        groups: dict[tuple, list[Hole]] = {}
-        for h in self.holes:
-            groups.setdefault((round(h.diameter_mm, 4), h.drill), []).append(h)
-        order = sorted(groups, key=lambda k: k[0])
-        pilots: dict[str, list[str]] = {}
-        drill_lines = []
-        for key in order:
-            hs = groups[key]
-            h = hs[0]
-            ids = [x.id for x in hs]
-            tilt = " (tilted: see the tilt note)" if any(x.id in tilts for x in hs) else ""
-            depth = "through" if h.through else f"{self.fmt(h.depth_mm)} deep"
-            if h.thread:
-                why = f"tap drill for {h.thread}"
-            elif h.kind == "socket":
-                why = "spreader socket"
-            elif h.kind == "bore":
-                why = "mast bore"
-            elif h.countersink is not None or h.counterbore is not None:
-                why = "screw clearance"
-            else:
-                why = "plain hole"
-            if h.drill:
-                big = h.diameter_mm
-                drill_lines.append(f"Drill {drill_label(h.drill, h.diameter_mm, self.units)}: {id_list(ids)}, {depth}"
-                                   f" ({why}){tilt}.")
-            else:
-                under = largest_drill_under(h.diameter_mm, self.series)
-                if under is not None and under.diameter_mm >= OPEN_UP_FRACTION * h.diameter_mm:
-                    big = under.diameter_mm
-                    drill_lines.append(f"Drill {under.label(self.units)}, then open to {self.fmt(h.diameter_mm)}"
-                                       f" with a boring head, reamer or step drill: {id_list(ids)}, {depth}"
-                                       f" ({why}; no stock drill of that size){tilt}.")
-                else:
-                    big = 0.0
-                    tools = ("a hole saw, boring head or lathe, the hole saw's pilot in the centre mark" if h.through
-                             else "a Forstner bit, boring head or lathe, centred on the crosshair")
-                    drill_lines.append(f"Cut {self.fmt(h.diameter_mm)}: {id_list(ids)}, {depth} ({why}; larger than"
-                                       f" the stock drills: {tools}){tilt}.")
-            if big > PILOT_ABOVE_MM[self.units] + 1e-9:
-                p = pilot_drill(big, self.series)
-                pilots.setdefault(p.label(self.units), []).extend(ids)
-        for label, ids in pilots.items():
-            limit = format_length(PILOT_ABOVE_MM[self.units], self.units)
-            steps.append(f"Pilot {label}: {id_list(ids)} (drills over {limit} need one).")
-        steps += drill_lines
-        taps: dict[str, list[str]] = {}
-        for h in self.holes:
-            if h.thread:
-                taps.setdefault(h.thread, []).append(h.id)
-        for thread, ids in taps.items():
-            steps.append(f"Tap {thread}: {id_list(ids)}.")
-        sinks: dict[str, list[str]] = {}
-        for h in self.holes:
-            if h.countersink is not None:
-                sinks.setdefault(f"Countersink {h.countersink.angle_deg:g} deg to"
-                                 f" {self.fmt(h.countersink.diameter_mm)} across", []).append(h.id)
-            if h.counterbore is not None:
-                sinks.setdefault(f"Counterbore {self.fmt(h.counterbore.diameter_mm)},"
-                                 f" {self.fmt(h.counterbore.depth_mm)} deep", []).append(h.id)
-        for what, ids in sinks.items():
-            steps.append(f"{what}: {id_list(ids)}.")
-        return steps
-
     def _jig_note(self) -> str:
         from generators.plan.jig import jig_reason
 
@@ -653,8 +534,8 @@ class _SheetBuilder:
             notes.append("Seen from below: right on the sheet is +X of the hub, up is -Y (a mirror of the top"
                          " view). Datum 0,0: the mast axis.")
         elif f.kind == "rim":
-            C = math.pi * self.plan.body.diameter_mm
-            notes.append(f"Cut the strip out on its outline ({self.fmt(C)} long, {self.fmt(self.plan.body.thickness_mm)}"
+            C = 2 * math.pi * self.frame.radius_mm
+            notes.append(f"Cut the strip out on its outline ({self.fmt(C)} long, {self.fmt(max(p[1] for p in f.outline))}"
                          " high) and wrap it round the rim, bottom edge on the bottom face, printed side out. The two"
                          " JOIN marks meet at azimuth"
                          f" {self.frame.join_deg:g} deg; glue the start over the tab.")

@@ -36,7 +36,7 @@ def write_templates(ctx) -> None:
         return
     folder = ctx.folder / FOLDER
     folder.mkdir(exist_ok=True)
-    sheets = build_sheets(plan, cfg)
+    sheets = build_sheets(plan, cfg, ctx.design.operations)
     paper = paper_for(cfg)
     pages = P.layout(sheets, paper)
     records = []
@@ -76,7 +76,7 @@ def write_templates(ctx) -> None:
     }
     tiled = sorted({p.sheet.face.id for p in pages if p.tiled})
     ctx.summary.append(f"  templates {FOLDER}/{PDF}: {len(pages)} {paper_name(paper)} pages at 1:1 (print at 100 %,"
-                       f" check the 100 mm bar), {len(sheets)} DXF, a PNG preview a page"
+                       f" check the {'4 in' if cfg.units == 'in' else '100 mm'} bar), {len(sheets)} DXF, a PNG preview a page"
                        + (f"; tiled: {', '.join(tiled)}" if tiled else ""))
 
 

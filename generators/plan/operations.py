@@ -231,7 +231,7 @@ class _Printed(_Face):
                      note="print with the bottom face on the bed, as modelled; no support needed")
         cleared = [h for h in holes if h.profile in ("teardrop", "hex") or h.kind in POCKET_KINDS]
         if cleared:
-            self.add("clear", cleared, "deburring blade or hobby knife", stage=STAGE_HOLES,
+            self.add("clear", cleared, "deburring blade or hobby knife", stage=min(stage_of(h) for h in cleared),
                      note="trim strings and any sag from teardrop roofs and nut slots")
         round_ = [h for h in holes if h.kind not in POCKET_KINDS]
         by_size: dict[float, list[Hole]] = {}
@@ -252,6 +252,8 @@ class _Printed(_Face):
                          False, STAGE_HOLES, None,
                          f"for {h.serves}: press in square with a soldering iron and insert tip, about 220-250 C"
                          " for PETG (common practice; follow the insert maker's figure), flush with the face")
+
+        self.rows.sort(key=lambda r: r["stage"])  # stable: the bore, then sockets, then the rest
 
     def _print_face(self) -> str:
         faces = faces_with_work(self.plan)

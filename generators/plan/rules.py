@@ -39,9 +39,6 @@ ENGAGE_MIN_D = 1.0
 SET_SCREW_MIN_ENGAGED_D = 1.0
 # Reducer sleeve wall (common practice): under 1.5 mm fails, under 3 mm warns.
 SLEEVE_MIN_MM, SLEEVE_RECOMMENDED_MM = 1.5, 3.0
-# Diametral slip fit of a sleeve in the bore when generators.plan.reducer is not there
-# (common practice).
-SLEEVE_FIT_MM = 0.3
 # Wind safety factors below these warn (common practice for an estimate like this one);
 # below 1 the estimate says the part fails in the design wind, and the rule fails.
 SF_SPREADER, SF_BEARING, SF_SET_SCREW = 1.5, 2.0, 2.0
@@ -89,10 +86,10 @@ def _grade(value: float, fail_below: float, warn_below: float) -> tuple[str, flo
 
 
 class _Rules:
-    def __init__(self, cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()):
+    def __init__(self, cfg: Config, plan: HubPlan, sleeves: tuple = ()):
         from generators.standards.materials import get_material
 
-        self.cfg, self.plan, self.masts = cfg, plan, tuple(masts)
+        self.cfg, self.plan, self.sleeve_plans = cfg, plan, tuple(sleeves)
         self.mat = get_material(plan.material)
         self.cls = self.mat.material_class
         self.min_wall = MIN_WALL_MM[self.cls]
@@ -406,24 +403,9 @@ class _Rules:
                           f"geometry of the tilted socket; minimum wall {COMMON}")
 
     def sleeves(self) -> list[dict]:
-        """Reducer sleeve OD, ID and wall per ``[[reducers]]`` entry (and ``--mast`` size),
-        from ``generators.plan.reducer`` when it is there, else from the bore and mast OD."""
-        try:
-            from generators.plan.reducer import plan_sleeves
-        except ImportError:  # pragma: no cover - the reducer module ships with hubwright
-            plan_sleeves = None
-        if plan_sleeves is not None:
-            return [{"key": s.key, "mast": s.mast_designation,
-                     "mast_od_mm": s.mast_od_mm, "od_mm": s.od_mm, "id_mm": s.id_mm,
-                     "wall_mm": s.wall_mm} for s in plan_sleeves(self.cfg, self.plan, self.masts)]
-        out = []
-        for i, red in enumerate(self.cfg.reducers):
-            od = self.plan.bore_mm - SLEEVE_FIT_MM
-            id_ = red.mast.od_mm + self.cfg.mast.clearance
-            out.append({"key": f"reducers[{i}]", "mast": red.mast.designation,
-                        "mast_od_mm": red.mast.od_mm, "od_mm": od, "id_mm": id_,
-                        "wall_mm": (od - id_) / 2})
-        return out
+        """Reducer sleeve OD, ID and wall per ``[[reducers]]`` entry and ``--mast`` size."""
+        return [{"key": s.key, "mast": s.mast_designation, "mast_od_mm": s.mast_od_mm, "od_mm": s.od_mm,
+                 "id_mm": s.id_mm, "wall_mm": s.wall_mm} for s in self.sleeve_plans]
 
     def rule_sleeve_wall(self) -> RuleResult:
         sl = self.sleeves()
@@ -550,11 +532,11 @@ class Checks:
         return {"rules": [r.as_json() for r in self.rules], "wind": self.wind.as_json()}
 
 
-def evaluate(cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()) -> Checks:
-    """Every rule and the wind estimate for a plan (``masts``: extra sleeves asked for)."""
+def evaluate(cfg: Config, plan: HubPlan, sleeves: tuple = ()) -> Checks:
+    """Every rule and the wind estimate for a plan (``sleeves``: its sleeve plans)."""
     from generators.plan.loads import wind_estimate
 
-    r = _Rules(cfg, plan, masts)
+    r = _Rules(cfg, plan, sleeves)
     results = [getattr(r, name)() for name in RULES]
     wind = wind_estimate(cfg, plan, r.engaged_set_screw_mm)
     results += r.wind_rules(wind)
@@ -562,9 +544,9 @@ def evaluate(cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()) -> Checks:
                   sleeves=tuple(r.sleeves()), mass_estimate_g=r.mass_estimate_g())
 
 
-def run_checks(cfg: Config, plan: HubPlan, masts: tuple[str, ...] = ()) -> dict:
+def run_checks(cfg: Config, plan: HubPlan, sleeves: tuple = ()) -> dict:
     """``{"rules": [...], "wind": {...}}`` as plain data."""
-    return evaluate(cfg, plan, masts).as_json()
+    return evaluate(cfg, plan, sleeves).as_json()
 
 
 def failed(checks: dict) -> list[dict]:

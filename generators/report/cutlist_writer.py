@@ -4,31 +4,15 @@ from __future__ import annotations
 
 import csv
 import io
-import json
 
-from generators.plan.cutlist import CutCase, cut_list
-from generators.plan.reducer import SleevePlan, plan_sleeves
-from generators.report.manifest import MANIFEST, plan_record
+from generators.manifest import plan_record, previous_manifest
+from generators.plan.cutlist import CutCase
 from generators.units import MM_PER_IN, format_both
 
 CUTLIST = "cutlist.csv"
 # Cut lengths closer than this are the same cut (common practice: about what a marked
 # saw cut on a fiberglass pole holds).
 RECUT_TOLERANCE_MM = 0.5
-
-
-def sleeves_for(ctx) -> list[SleevePlan]:
-    """The sleeve plans of this build: the config's reducers, then ``--mast`` sizes."""
-    return plan_sleeves(ctx.config, ctx.plan, tuple(ctx.options.get("masts", ()) or ()))
-
-
-def previous_manifest(ctx) -> dict | None:
-    """The manifest of the build this one replaces (its folder is swapped out at the end)."""
-    path = ctx.folder.parent / ctx.config.name / MANIFEST
-    try:
-        return json.loads(path.read_text(encoding="utf-8"))
-    except (OSError, ValueError):
-        return None
 
 
 def _in_units(mm: float, units: str) -> float:
@@ -61,7 +45,7 @@ def _difference(new: float, old: float, units: str, what: str) -> str:
 
 def write_cutlist(ctx) -> None:
     cfg, plan, units = ctx.config, ctx.plan, ctx.config.units
-    cases = cut_list(cfg, plan, sleeves_for(ctx))
+    cases = list(ctx.design.cut_cases)
     if not cases:
         ctx.manifest["cutlist"] = None
         ctx.summary.append("  cut list not made: give spreaders.tip_radius or spreaders.tip_spacing")
@@ -92,15 +76,18 @@ def write_cutlist(ctx) -> None:
 
 
 def _compare_previous(ctx, primary: CutCase, units: str) -> None:
-    prev = previous_manifest(ctx)
-    old = [s.get("cut_length_mm") for s in (prev or {}).get("spreaders", [])]
-    if not old or any(v is None for v in old):
+    prev = previous_manifest(ctx.folder.parent, ctx.config.name)
+    spreaders = (prev or {}).get("spreaders")
+    old = [s.get("cut_length_mm") if isinstance(s, dict) else None for s in spreaders] \
+        if isinstance(spreaders, list) else []
+    if not old or any(not isinstance(v, (int, float)) for v in old):
         return
     if len(old) != len(primary.lines):
         ctx.summary.append("  recut  the spreader count changed since the previous build")
-        ctx.manifest["cutlist"]["recut_since_previous"] = True
+        ctx.changes["recut_since_previous"] = True
         return
     worst = max(primary.lines, key=lambda ln: abs(ln.cut_length_mm - old[ln.spreader - 1]))
     text = _difference(worst.cut_length_mm, old[worst.spreader - 1], units, "the previous build")
-    ctx.manifest["cutlist"]["recut_since_previous"] = text.startswith("re-cut")
+    ctx.changes["recut_since_previous"] = text.startswith("re-cut")
+    ctx.changes["cut_length_change_mm"] = round(worst.cut_length_mm - old[worst.spreader - 1], 3)
     ctx.summary.append(f"  recut  {text}")

@@ -13,11 +13,6 @@ from typing import Any
 from generators.plan.model import Hole, HubPlan
 from generators.units import format_both, format_length
 
-# Holes over this diameter get a pilot first (common practice: a big drill wanders and
-# grabs without one); the pilot is about the size of a big drill's chisel edge.
-PILOT_OVER_MM = 10.0
-PILOT = {"mm": ("metric", 6.0), "in": ("fractional", 6.35)}
-
 CAUTIONS = (
     "**Power lines**: keep the mast and antenna far enough from overhead lines that nothing can"
     " touch them if the mast falls or the antenna swings. Look up before you raise anything.",
@@ -59,115 +54,29 @@ class _Md:
         self.add("")
 
 
-def drill_text(h: Hole, units: str) -> str:
-    """The cutter for a hole by its shop name, in the config's units."""
-    from generators.standards.drills import find_drill
+def schedule_sections(d) -> list[tuple[int, str, list]]:
+    """(stage, face id, operations) in working order: every face's marking and bore first,
+    then the sockets, then the holes that break into them; step numbers as on the templates."""
+    from generators.plan.operations import STAGE_MARK
 
-    if h.drill:
-        try:
-            return find_drill(h.drill).label(units)
-        except Exception:  # noqa: BLE001 - a name the drill tables do not know: show it as is
-            return h.drill
-    from generators.standards.drills import drills
-
-    size = format_length(h.diameter_mm, units, fractions=False)
-    series = ("fractional", "number", "letter") if units == "in" else ("metric",)
-    stock = drills(series)
-    under = [d for d in stock if d.diameter_mm < h.diameter_mm]
-    if h.diameter_mm > stock[-1].diameter_mm or h.kind == "bore":
-        return (f"bore to {size}: hole saw or Forstner bit under size, then bore or turn to size"
-                if h.diameter_mm > 30 else f"bore or mill to {size}")
-    near = f"; nearest stock drill under it {under[-1].label(units)}" if under else ""
-    return f"bore, mill or ream to {size} (no stock twist drill that size{near})"
-
-
-def pilot_text(units: str) -> str:
-    from generators.standards.drills import drills
-
-    series, mm = PILOT[units]
-    d = min(drills((series,)), key=lambda x: abs(x.diameter_mm - mm))
-    return d.label(units)
-
-
-def _depth_text(h: Hole, plan: HubPlan, md: _Md) -> str:
-    if h.kind == "bore" or h.through:
-        return f"through ({md.L(h.depth_mm)})"
-    if h.kind == "socket":
-        sp = next((s for s in plan.spreaders if s.socket_hole == h.id), None)
-        if sp is not None and sp.stop != "socket floor":
-            return f"into the bore ({md.L(h.depth_mm)} along the axis)"
-        return f"{md.L(h.depth_mm)} deep, flat bottom"
-    if h.kind == "set_screw":
-        return f"into the socket ({md.L(h.depth_mm)} to the socket axis)"
-    if h.kind == "clamp":
-        return f"into the bore ({md.L(h.depth_mm)})"
-    return f"{md.L(h.depth_mm)} deep"
-
-
-def _angle_note(h: Hole, face) -> str:
-    cosang = -sum(a * n for a, n in zip(h.axis, face.normal))
-    ang = math.degrees(math.acos(max(-1.0, min(1.0, cosang))))
-    if ang < 0.05:
-        return "square to the face"
-    lean = "toward the bottom face" if h.axis[2] < 0 else "toward the top face"
-    return f"{ang:.1f} deg off square, leaning {lean} as it goes in"
-
-
-def _pass_of(h: Hole) -> int:
-    """Drilling order: the bore first, then the sockets, then holes that break into them."""
-    return {"bore": 0, "socket": 1}.get(h.kind, 2)
-
-
-def drill_passes(plan: HubPlan) -> list[tuple[int, str, list[Hole]]]:
-    """(pass, face id, holes) in the order to drill them."""
-    face_order = {f.id: i for i, f in enumerate(plan.faces)}
-    groups: dict[tuple[int, str], list[Hole]] = {}
-    for h in plan.holes:
-        groups.setdefault((_pass_of(h), h.face), []).append(h)
-    keys = sorted(groups, key=lambda k: (k[0], face_order.get(k[1], 99)))
-    return [(k[0], k[1], groups[k]) for k in keys]
-
-
-def _steps(holes: list[Hole], plan: HubPlan, md: _Md) -> list[list[str]]:
-    """Operations on one face: punch, pilot, drill (small to large), tap, sink or bore."""
-    ids = lambda hs: ", ".join(h.id for h in hs)  # noqa: E731
-    rows = [["centre punch", ids(holes), "punch", "at the template marks", ""]]
-    big = [h for h in holes if h.diameter_mm > PILOT_OVER_MM and h.drill]
-    if big:
-        rows.append(["pilot drill", ids(big), pilot_text(md.units), "same depth as the hole",
-                     "steadies the large drill"])
-    by_cutter: dict[str, list[Hole]] = {}
-    for h in sorted(holes, key=lambda h: (h.diameter_mm, h.id)):
-        by_cutter.setdefault(drill_text(h, md.units), []).append(h)
-    for cutter, hs in by_cutter.items():
-        op = "tap drill" if hs[0].thread and hs[0].kind not in ("nut_pocket", "insert_pocket") else "drill"
-        if hs[0].kind in ("nut_pocket", "insert_pocket"):
-            op = "pocket (printed)"
-        face = plan.face(hs[0].face)
-        note = _angle_note(hs[0], face) if hs[0].kind == "socket" else ""
-        if hs[0].note and hs[0].kind in ("extra", "clamp", "nut_pocket", "insert_pocket"):
-            note = "; ".join(x for x in (note, hs[0].note) if x)
-        rows.append([op, ids(hs), cutter, "; ".join(dict.fromkeys(_depth_text(h, plan, md) for h in hs)), note])
-    tapped = [h for h in holes if h.thread and h.kind not in ("nut_pocket", "insert_pocket")]
-    by_thread: dict[str, list[Hole]] = {}
-    for h in tapped:
-        by_thread.setdefault(h.thread, []).append(h)
-    for thread, hs in by_thread.items():
-        pct = f"{hs[0].thread_percent:.0f}% thread" if hs[0].thread_percent else ""
-        blind = any(not h.through and h.kind == "extra" for h in hs)
-        rows.append(["tap", ids(hs), f"{thread} tap", "full depth" + ("; finish with a bottoming tap" if blind else ""),
-                     "; ".join(x for x in (pct, "tap straight, back off every turn to break the chip") if x)])
-    sinks: dict[tuple, list[Hole]] = {}
-    for h in holes:
-        if h.countersink:
-            sinks.setdefault(("countersink", f"{h.countersink.angle_deg:g} deg countersink",
-                              f"to {md.L(h.countersink.diameter_mm)} across", "screw head flush"), []).append(h)
-        if h.counterbore:
-            sinks.setdefault(("counterbore", f"{md.L(h.counterbore.diameter_mm)} counterbore",
-                              f"{md.L(h.counterbore.depth_mm)} deep", "head below the surface"), []).append(h)
-    for (op, tool, depth, note), hs in sinks.items():
-        rows.append([op, ids(hs), tool, depth, note])
-    return [[str(i + 1)] + r for i, r in enumerate(rows)]
+    face_order = {f.id: i for i, f in enumerate(d.plan.faces)}
+    groups: dict[tuple[int, str], list] = {}
+    for op in d.operations:
+        groups.setdefault((op.stage, op.face), []).append(op)
+    faces_stage = {}
+    for (stage, face) in groups:
+        if stage != STAGE_MARK:
+            faces_stage[face] = min(faces_stage.get(face, 9), stage)
+    out = []
+    for (stage, face), ops in groups.items():
+        if stage == STAGE_MARK:  # marking goes with the face's first cutting stage
+            stage = faces_stage.get(face, stage)
+        out.append((stage, face, ops))
+    merged: dict[tuple[int, str], list] = {}
+    for stage, face, ops in out:
+        merged.setdefault((stage, face), []).extend(ops)
+    keys = sorted(merged, key=lambda k: (k[0], face_order.get(k[1], 99)))
+    return [(k[0], k[1], sorted(merged[k], key=lambda op: op.step)) for k in keys]
 
 
 def _positions(holes: list[Hole], plan: HubPlan, md: _Md) -> list[list[str]]:
@@ -186,8 +95,12 @@ def _face_name(plan: HubPlan, face_id: str) -> str:
     return f"{face_id} ({f.label})" if f.label else face_id
 
 
-def render_report(cfg, plan: HubPlan, checks, manifest: dict[str, Any], preview: str | None) -> str:
-    """The whole report as markdown text."""
+def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
+    """The whole report as markdown text, rendered from the design."""
+    from generators.plan.operation_text import step_row
+    from generators.plan.operations import STAGE_NAMES
+
+    cfg, plan, checks = d.config, d.plan, d.checks
     md = _Md(cfg.units)
     units = cfg.units
     hub = manifest.get("hub", {})
@@ -231,19 +144,26 @@ def render_report(cfg, plan: HubPlan, checks, manifest: dict[str, Any], preview:
     else:
         md.add("(no picture: the hub's STL was not there to render)", "")
 
-    md.add("## Drill schedule", "",
-           "Mark every hole from the 1:1 templates (or the positions below: u to the right and v up"
-           " looking at the face from outside), then work through the faces in this order: the bore"
-           " first, then the sockets, then the holes that break into them, so their burrs are cleaned"
-           " up last. Sizes in " + ("inches" if units == "in" else "millimetres") + ".", "")
+    if plan.process == "printed":
+        md.add("## Print and finish", "",
+               "Print the hub bottom face down as modelled; then per face, in this order (sizes in "
+               + ("inches" if units == "in" else "millimetres") + "; check the designed sizes with a caliper).", "")
+    else:
+        md.add("## Drill schedule", "",
+               "Mark every hole from the 1:1 templates (or the positions below: u to the right and v up"
+               " looking at the face from outside), then work in this order: the bore first, then the"
+               " sockets, then the holes that break into them. Step numbers are those of each face's"
+               " template. Sizes in " + ("inches" if units == "in" else "millimetres") + ".", "")
     templates = {t.get("face"): t.get("file") for t in (manifest.get("templates") or []) if isinstance(t, dict)}
-    for k, (pass_no, face_id, holes) in enumerate(drill_passes(plan)):
-        what = {0: "bore", 1: "socket", 2: "holes"}[pass_no]
-        md.add(f"### {k + 1}. {_face_name(plan, face_id)}: {what}", "")
+    for k, (stage, face_id, ops) in enumerate(schedule_sections(d)):
+        md.add(f"### {k + 1}. {_face_name(plan, face_id)}: {STAGE_NAMES[stage]}", "")
         if templates.get(face_id):
             md.add(f"Template: `{templates[face_id]}`", "")
-        md.table(["step", "operation", "holes", "tool", "depth", "notes"], _steps(holes, plan, md))
-        md.table(["hole", "kind", "u", "v", "diameter", "thread", "note"], _positions(holes, plan, md))
+        md.table(["step", "operation", "holes", "tool", "depth", "notes"], [step_row(op, units) for op in ops])
+        ids = {h for op in ops for h in op.holes}
+        holes = [h for h in plan.holes_on(face_id) if h.id in ids]
+        if holes:
+            md.table(["hole", "kind", "u", "v", "diameter", "thread", "note"], _positions(holes, plan, md))
 
     md.add("## Fasteners", "")
     md.table(["qty", "item", "size", "notes"], fastener_rows(cfg, plan, checks, md))
@@ -292,7 +212,7 @@ def render_report(cfg, plan: HubPlan, checks, manifest: dict[str, Any], preview:
            "Design rules run on the plan before anything was written (`hubwright check` prints the"
            " same table). pass = at or above the recommended figure; warn = below it but above the"
            " minimum; fail = below the minimum (the build stops unless --force).", "")
-    from generators.commands.check import figure
+    from generators.report.figures import figure
 
     rows = [[r.id, r.status.upper() if r.status != "pass" else r.status, figure(r.value, r.unit, units),
              figure(r.limit, r.unit, units), r.message, r.source] for r in checks.rules]

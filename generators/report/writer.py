@@ -2,8 +2,7 @@
 
 from __future__ import annotations
 
-from generators.plan.rules import evaluate
-from generators.report.manifest import file_hashes, plan_record
+from generators.manifest import file_hashes, plan_record
 from generators.report.report_md import render_report
 
 REPORT_MD = "report.md"
@@ -41,11 +40,11 @@ def write_report(ctx) -> None:
         render_preview(stl, ctx.folder / PREVIEW, f"{plan.name}: {plan.mast_designation} mast",
                        labels=_labels(plan))
         preview = PREVIEW
-    checks = evaluate(cfg, plan, tuple(ctx.options.get("masts") or ()))
+    checks = ctx.design.checks
     manifest = plan_record(plan, ctx.volume_mm3)
     manifest.update(ctx.manifest)
     manifest["files"] = {**file_hashes(ctx.folder), REPORT_MD: "", REPORT_HTML: ""}
-    text = render_report(cfg, plan, checks, manifest, preview)
+    text = render_report(ctx.design, manifest, preview)
     (ctx.folder / REPORT_MD).write_text(text, encoding="utf-8")
     html = _html(text, plan.name)
     if html is not None:

@@ -40,9 +40,10 @@ def modified(path=METRIC, **sections) -> dict:
 
 
 def checks_for(data: dict):
-    cfg = parse_config(data)
-    plan = build_plan(cfg)
-    return cfg, plan, evaluate(cfg, plan)
+    from generators.design import design
+
+    d = design(parse_config(data))
+    return d.config, d.plan, d.checks
 
 
 def rule(checks, rule_id: str):

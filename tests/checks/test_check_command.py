@@ -69,14 +69,13 @@ def test_build_refuses_a_failed_rule_unless_forced():
     from generators.build import design_checks
     from generators.config.load import parse_config
     from generators.errors import DesignRuleError
-    from generators.plan.hub import build_plan
+    from generators.design import design
 
-    cfg = parse_config(modified(hub={"thickness": 24}, spreaders={"elevation": 0}))
-    plan = build_plan(cfg)
+    d = design(parse_config(modified(hub={"thickness": 24}, spreaders={"elevation": 0})))
     with pytest.raises(DesignRuleError) as exc:
-        design_checks(cfg, plan, {"force": False})
+        design_checks(d, force=False)
     assert exc.value.exit_code == 1 and "socket-wall" in exc.value.line() and "\n" not in exc.value.line()
-    checks = design_checks(cfg, plan, {"force": True})
+    checks = design_checks(d, force=True)
     assert any(r["status"] == "fail" for r in checks["rules"])
 
 

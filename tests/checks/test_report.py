@@ -49,7 +49,7 @@ def test_every_manifest_hole_is_in_the_drill_schedule(built):
 def test_drilling_order_bore_then_sockets_then_cross_holes(built):
     heads = re.findall(r"^### \d+\. (\S+) .*: (\w+)$", _section(built["md"], "Drill schedule"), re.M)
     kinds = [k for _, k in heads]
-    assert kinds[0] == "bore" and kinds.index("holes") > max(i for i, k in enumerate(kinds) if k == "socket")
+    assert kinds[0] == "bore" and kinds.index("holes") > max(i for i, k in enumerate(kinds) if k == "sockets")
     sched = _section(built["md"], "Drill schedule")
     top = sched[sched.index(": holes"):]
     # per face: punch before drill before tap (ISO M6 tap drill 5.0 mm in metal, 5.1 mm chosen for acetal)

@@ -75,13 +75,14 @@ def make_templates(raw: dict, folder: pathlib.Path) -> Templates:
     from generators.build import BuildContext
     from generators.config.load import parse_config
     from generators.drawings.writer import write_templates
-    from generators.plan.hub import build_plan
-    from generators.report.manifest import plan_record
+    from generators.design import design
+    from generators.manifest import plan_record
 
     cfg = parse_config(copy.deepcopy(raw))
-    plan = build_plan(cfg)
+    d = design(cfg)
+    plan = d.plan
     folder.mkdir(parents=True, exist_ok=True)
-    ctx = BuildContext(config=cfg, plan=plan, folder=folder)
+    ctx = BuildContext(design=d, folder=folder)
     write_templates(ctx)
     manifest = plan_record(plan)
     manifest.update(ctx.manifest)

@@ -297,7 +297,7 @@ def test_drilling_order_in_shop_names_inch(templates):
     assert where == sorted(where)
     side = info_text(t, "flat-1")
     assert "Pilot 1/4 (0.2500 in): S1" in side  # 3/4 in class drill: a pilot a third of it
-    assert "then open to 0.770 in" in side  # no stock drill of the socket's 0.770 in
+    assert "Open up to 0.770 in with" in side  # no stock drill of the socket's 0.770 in
     assert "Tap 1/4-20 UNC: C1" in info_text(t, "chamfer-1")
 
 
@@ -313,7 +313,7 @@ def test_drilling_order_metric_and_counterbore(templates):
     assert "Drill 5.1 mm: T1, T2, T3, T4, T5, T6" in text and "Tap M6x1" in text and "Tap M5x0.8: FP1, FP2" in text
     assert "Pilot 6.5 mm: S1" in info_text(t, "flat-1")
     # 51 mm is past the 32 mm metric set: cut, not drilled; 20.5 mm is a stock drill
-    assert "Cut 51 mm: bore, through (mast bore; larger than the stock drills: a hole saw" in text
+    assert "Cut 51 mm with a Forstner bit" in text and "bore, through (larger than the stock drills; mast bore)" in text
     assert "Drill 20.5 mm: S1" in info_text(t, "flat-1")
     oct_ = templates("oct-block-inch")
     bottom = info_text(oct_, "bottom")

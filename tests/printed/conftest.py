@@ -27,13 +27,15 @@ def _build(path: pathlib.Path, folder: pathlib.Path) -> Built:
     from generators.cad.extras_writer import write_jig, write_print_checks, write_tip_cap
     from generators.cad.writer import write_hub
     from generators.config import load_config
-    from generators.plan.hub import build_plan
+    from generators.design import design
+    from generators.drawings.jig_dxf import write_jig_drawing
 
     cfg = load_config(path)
-    plan = build_plan(cfg)
+    d = design(cfg)
+    plan = d.plan
     folder.mkdir(parents=True, exist_ok=True)
-    ctx = BuildContext(config=cfg, plan=plan, folder=folder, config_path=path)
-    for writer in (write_hub, write_print_checks, write_jig, write_tip_cap):
+    ctx = BuildContext(design=d, folder=folder, config_path=path)
+    for writer in (write_hub, write_print_checks, write_jig, write_jig_drawing, write_tip_cap):
         writer(ctx)
     return Built(cfg, plan, folder, ctx.manifest, ctx.summary)
 

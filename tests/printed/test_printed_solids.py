@@ -186,9 +186,9 @@ def test_tip_cap_bore_is_tip_od_plus_fit(printed, cap_solid):
 
 
 def test_jig_drawing_repeats_byte_for_byte(tilted, tmp_path):
-    from generators.cad.jig import write_jig_dxf
+    from generators.drawings.jig_dxf import write_jig_dxf
     from generators.plan.jig import jig_plan
 
     jig = jig_plan(tilted.plan, tilted.config)
-    write_jig_dxf(jig, tmp_path / "again.dxf", f"Config units: {tilted.config.units}; drawing in mm, 1:1.")
+    write_jig_dxf(jig, tmp_path / "again.dxf", tilted.config.units)
     assert (tmp_path / "again.dxf").read_bytes() == (tilted.folder / "jig.dxf").read_bytes()

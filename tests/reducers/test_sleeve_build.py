@@ -113,7 +113,8 @@ def test_rerun_with_another_mast_keeps_the_hub(built):
     text = built["text2"]
     assert "hub    files identical to the previous build" in text
     assert "recut  no re-cut" in text  # the poles still stop on a sleeve of the same OD
-    assert built["manifest2"]["cutlist"]["recut_since_previous"] is False
+    assert "recut_since_previous" not in built["manifest2"]["cutlist"]  # comparisons stay out of the manifest
+    assert json.loads((folder / "changes.json").read_text())["recut_since_previous"] is False
 
 
 def test_too_large_mast_is_refused_and_nothing_written(built, tmp_path):

@@ -1,4 +1,6 @@
-"""manifest.json: the plan and the build results as plain data (mm, degrees)."""
+"""manifest.json: the plan and the build results as plain data (mm, degrees); and
+changes.json, the comparison with the build a rebuild replaces (kept out of the manifest so
+a rebuild's manifest equals a fresh build's)."""
 
 from __future__ import annotations
 
@@ -11,6 +13,7 @@ from generators import __version__
 from generators.plan.model import Hole, HubPlan
 
 MANIFEST = "manifest.json"
+CHANGES = "changes.json"
 
 
 def _r(x: float, nd: int = 6) -> float:
@@ -111,7 +114,7 @@ def file_hashes(folder: Path) -> dict[str, str]:
     """sha256 of every file in the folder but the manifest, by relative path, sorted."""
     out = {}
     for p in sorted(folder.rglob("*")):
-        if p.is_file() and p.name != MANIFEST:
+        if p.is_file() and p.relative_to(folder).as_posix() not in (MANIFEST, CHANGES):
             out[p.relative_to(folder).as_posix()] = sha256(p)
     return out
 
@@ -123,3 +126,19 @@ def write_manifest(folder: Path, record: dict[str, Any]) -> dict[str, Any]:
     path = folder / MANIFEST
     path.write_text(json.dumps(record, indent=2, sort_keys=False) + "\n", encoding="utf-8")
     return record
+
+
+def previous_manifest(folder: Path, name: str) -> dict | None:
+    """The manifest of the build in ``folder/name`` that this one replaces, or None when
+    there is none or it is not a manifest this version can read."""
+    path = folder / name / MANIFEST
+    try:
+        data = json.loads(path.read_text(encoding="utf-8"))
+    except (OSError, ValueError, UnicodeError):
+        return None
+    return data if isinstance(data, dict) else None
+
+
+def write_changes(folder: Path, changes: dict[str, Any]) -> None:
+    """changes.json: what differs from the previous build (empty when there was none)."""
+    (folder / CHANGES).write_text(json.dumps(changes, indent=2) + "\n", encoding="utf-8")

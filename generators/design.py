@@ -1,0 +1,72 @@
+"""One design, computed once: config (plus extra masts) → every plan, rule and operation.
+
+``check`` is ``design()`` plus printing; ``build`` is ``design()`` plus the writers, which
+only render what is here (no writer plans, chooses a screw or runs a rule again). No CAD
+import: this runs in ``check`` and in the sizing search.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from generators.config.models import Config
+
+
+@dataclass(frozen=True)
+class Design:
+    config: Config
+    masts: tuple[str, ...]
+    plan: object  # HubPlan
+    sleeves: tuple  # SleevePlan per extra mast
+    sleeve_plans: tuple  # (SleevePlan, its round HubPlan for templates and operations)
+    cut_cases: tuple  # CutCase: the hub as planned, then one per sleeve OD
+    jig: object | None  # JigPlan
+    jig_reason: str | None
+    tip_cap: object | None  # TipCapPlan
+    checks: object  # rules.Checks
+    series: tuple[str, ...]
+    material_class: str
+    operations: tuple  # Operation, hub faces in plan order
+    sleeve_operations: tuple  # (sleeve stem, tuple of Operation)
+
+    @property
+    def checks_json(self) -> dict:
+        return self.checks.as_json()
+
+    def failed(self) -> list[dict]:
+        return [r for r in self.checks_json["rules"] if r["status"] == "fail"]
+
+    def operations_on(self, face_id: str) -> list:
+        return [op for op in self.operations if op.face == face_id]
+
+    def operation_records(self) -> list[dict]:
+        return [op.record() for op in self.operations]
+
+
+def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
+    """The whole design, or a ``UserError`` naming what cannot be built."""
+    from generators.plan.cutlist import cut_list
+    from generators.plan.holes import material_class
+    from generators.plan.hub import build_plan
+    from generators.plan.jig import jig_plan, jig_reason
+    from generators.plan.operations import plan_operations
+    from generators.plan.reducer import plan_sleeves
+    from generators.plan.rules import evaluate
+    from generators.plan.shop import drill_series
+    from generators.plan.sleeve_faces import sleeve_as_plan
+    from generators.plan.tipcap import tip_cap_plan
+
+    masts = tuple(masts)
+    plan = build_plan(cfg)
+    sleeves = tuple(plan_sleeves(cfg, plan, masts))
+    series = drill_series(cfg)
+    mclass = material_class(cfg.hub.material)
+    sleeve_plans = tuple((s, sleeve_as_plan(plan, s)) for s in sleeves)
+    checks = evaluate(cfg, plan, sleeves)
+    return Design(
+        config=cfg, masts=masts, plan=plan, sleeves=sleeves, sleeve_plans=sleeve_plans,
+        cut_cases=tuple(cut_list(cfg, plan, sleeves)), jig=jig_plan(plan, cfg), jig_reason=jig_reason(plan, cfg),
+        tip_cap=tip_cap_plan(cfg), checks=checks, series=series, material_class=mclass,
+        operations=plan_operations(plan, cfg, series, mclass),
+        sleeve_operations=tuple((s.stem, plan_operations(sp, cfg, series, mclass)) for s, sp in sleeve_plans),
+    )
