@@ -9,7 +9,7 @@ from typing import Annotated, Literal
 
 from pydantic import BaseModel, BeforeValidator, ConfigDict, Field, ValidationInfo, field_validator, model_validator
 
-from generators.config.fields import Angle, Length, Speed, _units, _wrap
+from generators.config.fields import Angle, Azimuth, Length, Speed, _units, _wrap
 from generators.errors import UserError
 from generators.units import length_mm
 
@@ -93,7 +93,7 @@ class Spreaders(Section):
     diameter: PositiveLength
     fit: Annotated[Length, Field(ge=0, le=10)] = DEFAULT_SPREADER_FIT_MM
     elevation: Annotated[Angle, Field(ge=0, le=45)] = 0.0
-    first_azimuth: Angle = 0.0
+    first_azimuth: Azimuth = 0.0
     socket_depth: Literal["to-bore"] | float = "to-bore"
     tip_radius: PositiveLength | None = None
     tip_spacing: PositiveLength | None = None
