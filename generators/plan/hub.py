@@ -300,7 +300,7 @@ class _Planner:
                                     "a position nearer the outer face, a smaller thread or per_spreader = 1")
             for j, p in enumerate(positions):
                 hid = f"T{sock.spreader}" + ("" if ss.per_spreader == 1 else "ab"[j])
-                if not (r_d < p < depth - r_d):
+                if not (2 * r_d <= p <= depth - 2 * r_d):  # the range the refusal states
                     raise UserError("set_screws.position", f"{self.fmt(p)} is not along the socket",
                                     f"between {self.fmt(2 * r_d)} and {self.fmt(depth - 2 * r_d)} from the outer face")
                 P = sock.point_at(p)
