@@ -82,6 +82,7 @@ def _convert(value: float, unit: str, target: str) -> float:
 # Anything beyond is a typing slip, and stating the limit up front keeps every later
 # product finite.
 LIMITS = {"millimeter": 1e6, "degree": 720.0, "meter/second": 1000.0}
+SMALLEST_MM = 0.001  # below a micrometre a length is a typing slip, and products underflow
 LIMIT_TEXT = {"millimeter": "at most 1 km", "degree": "from -720 to 720 deg", "meter/second": "at most 1000 m/s"}
 
 
@@ -94,6 +95,8 @@ def _quantity(value, key: str, default_unit: str | None, allowed: tuple[str, ...
     number = _quantity_raw(value, key, default_unit, allowed, target, kind, example)
     if abs(number) > LIMITS[target]:
         raise UserError(key, f"{value!r} is too large for {_a(kind)}", LIMIT_TEXT[target])
+    if target == "millimeter" and 0 < abs(number) < SMALLEST_MM:
+        raise UserError(key, f"{value!r} is too small for a length", "0, or at least 0.001 mm")
     return number
 
 

@@ -90,7 +90,8 @@ class Hub(Section):
 
 class Spreaders(Section):
     count: Annotated[int, Field(ge=3, le=12)]
-    diameter: PositiveLength
+    # a pole under 2 mm is no spreader; the bound keeps the wind stress finite (common practice)
+    diameter: Annotated[Length, Field(ge=2)]
     fit: Annotated[Length, Field(ge=0, le=10)] = DEFAULT_SPREADER_FIT_MM
     elevation: Annotated[Angle, Field(ge=0, le=45)] = 0.0
     first_azimuth: Azimuth = 0.0
@@ -119,6 +120,12 @@ class Spreaders(Section):
             raise ValueError("tip_spacing: give tip_radius or tip_spacing, not both")
         if self.wall is not None and self.inner_diameter is not None:
             raise ValueError("inner_diameter: give wall or inner_diameter, not both")
+        if self.inner_diameter is not None and self.inner_diameter >= self.diameter:
+            raise ValueError("inner_diameter: the pole's inside diameter must be smaller than"
+                             " spreaders.diameter (a tube has a wall)")
+        if self.wall is not None and 2 * self.wall >= self.diameter:
+            raise ValueError("wall: two walls must be thinner than spreaders.diameter"
+                             " (leave wall out for a solid rod)")
         return self
 
 
