@@ -63,7 +63,9 @@ def _compare_hub_files(ctx) -> None:
     prev = previous_manifest(ctx)
     if not prev or not all((ctx.folder / f).is_file() for f in HUB_FILES):
         return
-    old = prev.get("files", {})
+    old = prev.get("files")
+    if not isinstance(old, dict):
+        return  # an old or odd manifest: nothing to compare with
     same = all(old.get(f) == sha256(ctx.folder / f) for f in HUB_FILES)
     ctx.manifest["hub_unchanged"] = same
     ctx.summary.append("  hub    files identical to the previous build" if same else

@@ -5,6 +5,7 @@ from __future__ import annotations
 import csv
 import io
 import json
+import math
 
 from generators.plan.cutlist import CutCase, cut_list
 from generators.plan.reducer import SleevePlan, plan_sleeves
@@ -26,9 +27,10 @@ def previous_manifest(ctx) -> dict | None:
     """The manifest of the build this one replaces (its folder is swapped out at the end)."""
     path = ctx.folder.parent / ctx.config.name / MANIFEST
     try:
-        return json.loads(path.read_text(encoding="utf-8"))
-    except (OSError, ValueError):
+        data = json.loads(path.read_text(encoding="utf-8"))
+    except (OSError, ValueError, RecursionError):  # unreadable, not UTF-8, not JSON, absurdly nested
         return None
+    return data if isinstance(data, dict) else None  # anything else: as if there were no previous build
 
 
 def _in_units(mm: float, units: str) -> float:
@@ -93,8 +95,12 @@ def write_cutlist(ctx) -> None:
 
 def _compare_previous(ctx, primary: CutCase, units: str) -> None:
     prev = previous_manifest(ctx)
-    old = [s.get("cut_length_mm") for s in (prev or {}).get("spreaders", [])]
-    if not old or any(v is None for v in old):
+    spreaders = (prev or {}).get("spreaders")
+    if not isinstance(spreaders, list) or not all(isinstance(s, dict) for s in spreaders):
+        return  # an old or odd manifest: nothing to compare with
+    old = [s.get("cut_length_mm") for s in spreaders]
+    if not old or not all(isinstance(v, (int, float)) and not isinstance(v, bool) and math.isfinite(v)
+                          for v in old):
         return
     if len(old) != len(primary.lines):
         ctx.summary.append("  recut  the spreader count changed since the previous build")
