@@ -111,6 +111,11 @@ def build_many(configs: list[str], out: str | None = None, masts: tuple[str, ...
 
         def stop_workers() -> None:
             signals.stop_processes(list(getattr(pool, "_processes", None) or {}))
+            from multiprocessing import resource_tracker
+
+            tracker = getattr(resource_tracker, "_resource_tracker", None)
+            if getattr(tracker, "_pid", None):  # it would outlive us and warn on stderr
+                signals.stop_processes([tracker._pid], grace_s=0.0)
 
         with signals.on_interrupt(stop_workers), pool:
             futures = {pool.submit(build_one, c, out, masts, force): c for c in todo}
