@@ -1,21 +1,25 @@
-"""Build several configs in parallel worker processes, with a progress bar on stderr.
+"""Build several configs in parallel worker processes; every result comes back as data.
 
-One failing config never stops the others; each result gets a summary line and the
-exit status is the worst one (0 all built, 2 bad input, 3 an internal error).
+One failing config never stops the others. The workers are spawned (not forked: the
+caller may run a progress-bar thread), handle SIGINT/SIGTERM like the command, die
+with it (PR_SET_PDEATHSIG) and are stopped by it when it is interrupted.
 """
 
 from __future__ import annotations
 
 import os
+from collections.abc import Callable
 from concurrent.futures import ProcessPoolExecutor, as_completed
 from dataclasses import dataclass, field
 from multiprocessing import get_context
+
+from generators import signals
 
 
 @dataclass
 class BatchResult:
     config: str
-    code: int  # 0 built, 2 user error, 3 internal error
+    code: int  # 0 built, 1 a design rule failed, 2 user error, 3 internal error
     name: str = ""
     folder: str = ""
     lines: list[str] = field(default_factory=list)
@@ -23,33 +27,62 @@ class BatchResult:
 
 
 def build_one(config: str, out: str | None, masts: tuple[str, ...], force: bool) -> BatchResult:
-    """Build one config in a worker; every failure comes back as data, never raised."""
-    from generators.commands.build import build_checked
+    """Build one config; every failure comes back as data, never raised."""
     from generators.errors import UserError
-    from generators.report.summary import summary_lines
 
     try:
-        result = build_checked(config, out, masts=masts, force=force)
+        from generators.build import build_with_masts
+        from generators.report.summary import summary_lines
+
+        result = build_with_masts(config, out, masts=masts, force=force)
+        lines = [ln for ln in summary_lines(result) if not ln.startswith("Caution:")]
     except UserError as exc:
         return BatchResult(config, exc.exit_code, error=exc.line())
     except Exception as exc:  # noqa: BLE001 - reported per config, the batch goes on
         return BatchResult(config, 3, error=f"internal error ({type(exc).__name__}: {exc})")
-    return BatchResult(config, 0, name=result.name, folder=str(result.folder),
-                       lines=[ln for ln in summary_lines(result) if not ln.startswith("Caution:")])
+    return BatchResult(config, 0, name=result.name, folder=str(result.folder), lines=lines)
 
 
-def _duplicate_names(configs: list[str]) -> dict[str, str]:
-    """Configs whose output name an earlier config in the batch already uses."""
+def _worker_start() -> None:
+    signals.install(quiet=True)  # the command prints the one line
+    signals.die_with_parent()
+
+
+def unique_configs(configs: list[str]) -> list[str]:
+    """The configs in order, each file once (the same file named twice is built once)."""
+    seen: set[str] = set()
+    out = []
+    for path in configs:
+        try:
+            key = os.path.realpath(path)
+        except (OSError, ValueError):
+            key = path
+        if key not in seen:
+            seen.add(key)
+            out.append(path)
+    return out
+
+
+def _name_of(path: str) -> str | None:
     from generators.config import load_config
     from generators.errors import UserError
 
+    try:
+        return load_config(path).name
+    except UserError:
+        return None  # the worker reports it
+    except Exception:  # noqa: BLE001 - likewise: one config's bug never stops the batch
+        return None
+
+
+def duplicate_names(configs: list[str]) -> dict[str, str]:
+    """Configs whose output name an earlier config in the batch already uses, with the problem."""
     first: dict[str, str] = {}
     clashes: dict[str, str] = {}
     for path in configs:
-        try:
-            name = load_config(path).name
-        except UserError:
-            continue  # the worker reports it
+        name = _name_of(path)
+        if name is None:
+            continue
         if name in first:
             clashes[path] = (f"name: {name!r} is also built by {first[name]} in this batch"
                              " (give each config its own name)")
@@ -62,40 +95,41 @@ def workers_for(n_configs: int) -> int:
     return max(1, min(n_configs, os.cpu_count() or 1))
 
 
-def build_many(configs: list[str], args) -> int:
-    from rich.console import Console
-    from rich.progress import BarColumn, MofNCompleteColumn, Progress, TextColumn, TimeElapsedColumn
-
-    from generators.report.summary import CAUTION
-
-    out, masts, force = args.out, tuple(getattr(args, "mast", ()) or ()), bool(getattr(args, "force", False))
-    results: dict[str, BatchResult] = {}
-    for path, problem in _duplicate_names(configs).items():
-        results[path] = BatchResult(path, 2, error=problem)
+def build_many(configs: list[str], out: str | None = None, masts: tuple[str, ...] = (), force: bool = False,
+               on_result: Callable[[BatchResult], None] | None = None) -> list[BatchResult]:
+    """Build each config once, in parallel; the results in the order of ``configs``."""
+    configs = unique_configs(configs)
+    results: dict[str, BatchResult] = {p: BatchResult(p, 2, error=problem)
+                                       for p, problem in duplicate_names(configs).items()}
+    for r in results.values():
+        if on_result:
+            on_result(r)
     todo = [c for c in configs if c not in results]
-    console = Console(stderr=True)
-    with Progress(TextColumn("building"), BarColumn(), MofNCompleteColumn(), TimeElapsedColumn(),
-                  TextColumn("{task.description}"), console=console, transient=True) as bar:
-        task = bar.add_task("", total=len(configs), completed=len(results))
-        if todo:
-            # spawn, not fork: the progress bar runs a thread in this process
-            with ProcessPoolExecutor(max_workers=workers_for(len(todo)), mp_context=get_context("spawn")) as pool:
-                futures = {pool.submit(build_one, c, out, masts, force): c for c in todo}
-                for fut in as_completed(futures):
-                    path = futures[fut]
-                    try:
-                        results[path] = fut.result()
-                    except Exception as exc:  # noqa: BLE001 - a worker died (killed, out of memory)
-                        results[path] = BatchResult(path, 3, error=f"the worker stopped ({type(exc).__name__})")
-                    bar.update(task, advance=1, description=path)
-    ok = [results[c] for c in configs if results[c].code == 0]
-    failed = [results[c] for c in configs if results[c].code != 0]
-    for r in ok:
-        print(f"ok     {r.config}")
-        for line in r.lines:
-            print(f"  {line}")
-    for r in failed:
-        print(f"failed {r.config}: {r.error}")
-    print(f"batch: {len(ok)} built, {len(failed)} failed of {len(configs)}")
-    print(CAUTION)
-    return max((r.code for r in failed), default=0)
+    if todo:
+        pool = ProcessPoolExecutor(max_workers=workers_for(len(todo)), mp_context=get_context("spawn"),
+                                   initializer=_worker_start)
+
+        def stop_workers() -> None:
+            signals.stop_processes(list(getattr(pool, "_processes", None) or {}))
+            from multiprocessing import resource_tracker
+
+            tracker = getattr(resource_tracker, "_resource_tracker", None)
+            if getattr(tracker, "_pid", None):  # it would outlive us and warn on stderr
+                signals.stop_processes([tracker._pid], grace_s=0.0)
+
+        with signals.on_interrupt(stop_workers), pool:
+            futures = {pool.submit(build_one, c, out, masts, force): c for c in todo}
+            for fut in as_completed(futures):
+                path = futures[fut]
+                try:
+                    results[path] = fut.result()
+                except Exception as exc:  # noqa: BLE001 - a worker died (killed, out of memory)
+                    results[path] = BatchResult(path, 3, error=f"the worker stopped ({type(exc).__name__})")
+                if on_result:
+                    on_result(results[path])
+    return [results[c] for c in configs]
+
+
+def exit_status(results: list[BatchResult]) -> int:
+    """The worst status of the batch (0 when every config was built)."""
+    return max((r.code for r in results), default=0)

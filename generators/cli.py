@@ -9,7 +9,7 @@ import argparse
 import importlib
 import sys
 
-from generators import __version__
+from generators import __version__, signals
 from generators.errors import UserError
 
 COMMANDS = {
@@ -38,11 +38,11 @@ def parser() -> argparse.ArgumentParser:
     return p
 
 
-class _Parser(argparse.ArgumentParser):
-    pass
-
-
 def main(argv: list[str] | None = None) -> int:
+    import threading
+
+    if threading.current_thread() is threading.main_thread():
+        signals.install()  # SIGINT/SIGTERM: one line, exit 130/143, no process left behind
     p = parser()
     argv = sys.argv[1:] if argv is None else argv
     try:
@@ -57,8 +57,8 @@ def main(argv: list[str] | None = None) -> int:
     except UserError as exc:
         print(f"error: {exc.line()}", file=sys.stderr)
         return exc.exit_code
-    except KeyboardInterrupt:
-        print("error: interrupted; nothing was written", file=sys.stderr)
+    except KeyboardInterrupt:  # only where the handler could not be installed
+        print(signals.line(2), file=sys.stderr)
         return 130
     except BrokenPipeError:
         return 0

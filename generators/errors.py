@@ -3,7 +3,32 @@
 from __future__ import annotations
 
 import difflib
+import re
 from collections.abc import Iterable
+
+# Numbers echoed back in a message keep at most this many significant digits.
+MAX_DIGITS = 15
+_LONG_NUMBER = re.compile(r"\d[\d_]*(?:\.\d*)?(?:[eE][+-]?\d+)?")
+_CONTROL = re.compile(r"[\x00-\x08\x0b-\x1f\x7f-\x9f]")
+
+
+def _short_number(m: re.Match) -> str:
+    text = m.group(0)
+    if sum(c.isdigit() for c in text.split("e")[0].split("E")[0]) <= MAX_DIGITS:
+        return text
+    try:
+        value = float(text.replace("_", ""))
+    except ValueError:
+        value = float("inf")
+    if value != float("inf") and len(text.split(".")[0]) <= MAX_DIGITS:
+        return f"{value:.{MAX_DIGITS}g}"
+    digits = [c for c in text if c.isdigit()]
+    return "".join(digits[:MAX_DIGITS]) + f"...({len(digits)} digits)"
+
+
+def tidy(text: str) -> str:
+    """Text safe to echo on one line: no control characters, no endless numbers."""
+    return _LONG_NUMBER.sub(_short_number, _CONTROL.sub("?", str(text)))
 
 
 class UserError(Exception):
@@ -27,7 +52,7 @@ class UserError(Exception):
         text = f"{self.key}: {self.problem}" if self.key else self.problem
         if self.accepted:
             text += f" ({self.accepted})"
-        return " ".join(text.split())
+        return " ".join(tidy(text).split())
 
 
 def did_you_mean(word: str, choices: Iterable[str], n: int = 3) -> str:

@@ -134,7 +134,7 @@ def previous_manifest(folder: Path, name: str) -> dict | None:
     path = folder / name / MANIFEST
     try:
         data = json.loads(path.read_text(encoding="utf-8"))
-    except (OSError, ValueError, UnicodeError):
+    except (OSError, ValueError, UnicodeError, RecursionError):  # unreadable, not JSON, absurdly nested
         return None
     return data if isinstance(data, dict) else None
 

@@ -78,27 +78,54 @@ def _convert(value: float, unit: str, target: str) -> float:
     return value * _FACTORS[name] / _FACTORS[target]
 
 
+# The largest magnitude accepted in the base unit of each kind: 1 km, two turns, 1 km/s.
+# Anything beyond is a typing slip, and stating the limit up front keeps every later
+# product finite.
+LIMITS = {"millimeter": 1e6, "degree": 720.0, "meter/second": 1000.0}
+SMALLEST_MM = 0.001  # below a micrometre a length is a typing slip, and products underflow
+LIMIT_TEXT = {"millimeter": "at most 1 km", "degree": "from -720 to 720 deg", "meter/second": "at most 1000 m/s"}
+
+
+def _a(kind: str) -> str:
+    return ("an " if kind[0] in "aeiou" else "a ") + kind
+
+
 def _quantity(value, key: str, default_unit: str | None, allowed: tuple[str, ...],
               target: str, kind: str, example: str) -> float:
+    number = _quantity_raw(value, key, default_unit, allowed, target, kind, example)
+    if abs(number) > LIMITS[target]:
+        raise UserError(key, f"{value!r} is too large for {_a(kind)}", LIMIT_TEXT[target])
+    if target == "millimeter" and 0 < abs(number) < SMALLEST_MM:
+        raise UserError(key, f"{value!r} is too small for a length", "0, or at least 0.001 mm")
+    return number
+
+
+def _quantity_raw(value, key: str, default_unit: str | None, allowed: tuple[str, ...],
+                  target: str, kind: str, example: str) -> float:
     accepted = f"a number in the file's units or a string like {example}; units {', '.join(allowed)}"
     if isinstance(value, bool):
-        raise UserError(key, f"expected a {kind}, got {value!r}", accepted)
+        raise UserError(key, f"expected {_a(kind)}, got {value!r}", accepted)
     if isinstance(value, (int, float)):
-        number, unit = float(value), default_unit
+        try:
+            number, unit = float(value), default_unit
+        except OverflowError:
+            raise UserError(key, f"{value!r} is too large for {_a(kind)}", LIMIT_TEXT[target]) from None
     elif isinstance(value, str):
         try:
             number, unit = _split(value)
+        except OverflowError:
+            raise UserError(key, f"{value!r} is too large for {_a(kind)}", LIMIT_TEXT[target]) from None
         except (ValueError, ZeroDivisionError):
-            raise UserError(key, f"cannot read {value!r} as a {kind}", accepted) from None
+            raise UserError(key, f"cannot read {value!r} as {_a(kind)}", accepted) from None
         unit = unit or default_unit
     else:
-        raise UserError(key, f"expected a {kind}, got {type(value).__name__}", accepted)
+        raise UserError(key, f"expected {_a(kind)}, got {type(value).__name__}", accepted)
     if not math.isfinite(number):
         raise UserError(key, f"{value!r} is not a finite number", accepted)
     if unit is None:
         raise UserError(key, f"{value!r} has no unit", accepted)
     if _ALIASES.get(unit, _ALIASES.get(unit.lower())) not in {_ALIASES[a] for a in allowed}:
-        raise UserError(key, f"unknown or wrong kind of unit {unit!r} for a {kind}", accepted)
+        raise UserError(key, f"unknown or wrong kind of unit {unit!r} for {_a(kind)}", accepted)
     if unit == target or _ALIASES.get(unit) == _ALIASES.get(target, target):
         return number
     if target == "millimeter" and unit in ("in", '"', "inch"):
@@ -106,7 +133,7 @@ def _quantity(value, key: str, default_unit: str | None, allowed: tuple[str, ...
     try:
         return _convert(number, unit, target)
     except ValueError:
-        raise UserError(key, f"unknown or wrong kind of unit {unit!r} for a {kind}", accepted) from None
+        raise UserError(key, f"unknown or wrong kind of unit {unit!r} for {_a(kind)}", accepted) from None
 
 
 def length_mm(value, key: str, units: str = "mm") -> float:
@@ -118,6 +145,25 @@ def length_mm(value, key: str, units: str = "mm") -> float:
 def angle_deg(value, key: str) -> float:
     """An angle in degrees (bare numbers are degrees)."""
     return _quantity(value, key, "deg", ANGLE_UNITS, "degree", "angle", '"12 deg"')
+
+
+def azimuth_deg(value, key: str) -> float:
+    """An azimuth in degrees, reduced to [0, 360) exactly (decimal arithmetic, no float drift)."""
+    from decimal import Decimal, InvalidOperation
+
+    deg = angle_deg(value, key)
+    text = str(value).strip()
+    for suffix in ("degrees", "degree", "deg", "°"):
+        if text.endswith(suffix):
+            text = text[: -len(suffix)].strip()
+            break
+    try:
+        exact = Decimal(text) if not isinstance(value, float) else Decimal(repr(value))
+    except InvalidOperation:  # a fraction or radians: float arithmetic is all there is
+        return deg % 360.0
+    if not exact.is_finite():
+        return deg % 360.0
+    return float(exact % 360 + (360 if exact % 360 < 0 else 0))
 
 
 def speed_m_s(value, key: str) -> float:

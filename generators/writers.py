@@ -14,6 +14,7 @@ import threading
 import traceback
 from typing import Any
 
+from generators import signals
 from generators.errors import UserError
 
 # Writers that read only the plan and the config (never a file another writer made).
@@ -27,6 +28,7 @@ def call(spec: str, ctx) -> None:
 
 
 def _child_main(specs, ctx, conn) -> None:
+    signals.forked_child()  # a signal ends this child at once; the parent cleans up
     try:
         mark_m, mark_s = set(ctx.manifest), len(ctx.summary)
         for spec in specs:
@@ -51,8 +53,13 @@ class _Child:
         mp = multiprocessing.get_context("fork")
         self.conn, child_conn = mp.Pipe(duplex=False)
         self.proc = mp.Process(target=_child_main, args=(specs, ctx, child_conn), daemon=True)
-        self.proc.start()
+        with signals.held():  # no signal between the fork and the clean-up that stops the child
+            self.proc.start()
+            signals.register(self._kill)
         child_conn.close()
+
+    def _kill(self) -> None:
+        signals.stop_processes([self.proc.pid], grace_s=1.0)
 
     def join_into(self, ctx) -> None:
         try:
@@ -60,6 +67,7 @@ class _Child:
         except EOFError:
             message = ("crash", "the drawing worker stopped without a word", "")
         self.proc.join()
+        signals.unregister(self._kill)
         if message[0] == "ok":
             ctx.manifest.update(message[1])
             ctx.summary.extend(message[2])
@@ -75,6 +83,10 @@ class _Child:
         if self.proc.is_alive():
             self.proc.terminate()
             self.proc.join(5)
+        if self.proc.is_alive():
+            self.proc.kill()
+            self.proc.join(5)
+        signals.unregister(self._kill)
 
 
 def run_writers(writers: tuple[str, ...], ctx) -> None:

@@ -64,7 +64,7 @@ def _compare_hub_files(ctx) -> None:
         return
     old = prev.get("files")
     if not isinstance(old, dict):
-        return
+        return  # an old or odd manifest: nothing to compare with
     same = all(old.get(f) == sha256(ctx.folder / f) for f in HUB_FILES)
     ctx.changes["hub_unchanged"] = same
     ctx.summary.append("  hub    files identical to the previous build" if same else

@@ -8,7 +8,10 @@ from typing import Any
 
 from pydantic import BaseModel, ValidationError
 
+from generators.config.fields import field_kind
+from generators.config.limits import range_problem
 from generators.config.models import Config
+from generators.config.text import clean_strings
 from generators.errors import UserError, did_you_mean
 
 
@@ -24,7 +27,7 @@ def load_config(path: str | Path) -> Config:
     except OSError as exc:
         raise UserError(str(path), f"cannot read the config ({exc.strerror})") from None
     try:
-        text = raw.decode("utf-8")
+        text = raw.decode("utf-8").removeprefix("\ufeff")  # a byte-order mark is harmless
     except UnicodeDecodeError as exc:
         line = raw[: exc.start].count(b"\n") + 1
         raise UserError(f"{path.name}:{line}", "the file is not UTF-8 text",
@@ -38,13 +41,14 @@ def load_config(path: str | Path) -> Config:
 
 def parse_config(data: dict[str, Any]) -> Config:
     """Validate already-parsed TOML data."""
+    data = clean_strings(data)
     units = data.get("units", "mm")
     if units not in ("mm", "in"):
         raise UserError("units", f"{units!r} is not a unit system", '"mm" or "in"')
     try:
         return Config.model_validate(data, context={"units": units})
     except ValidationError as exc:
-        raise _user_error(exc) from None
+        raise _user_error(exc, units) from None
 
 
 def _key(loc: tuple) -> str:
@@ -72,6 +76,13 @@ def _model_at(loc: tuple) -> type[BaseModel] | None:
     return model
 
 
+def _kind_at(loc: tuple) -> str | None:
+    """Whether the field at ``loc`` holds a length, an angle or a speed."""
+    owner = _model_at(loc)
+    field = owner.model_fields.get(loc[-1]) if owner and loc else None
+    return field_kind(field.annotation, field.metadata) if field else None
+
+
 def _model_in(annotation) -> type[BaseModel] | None:
     if isinstance(annotation, type) and issubclass(annotation, BaseModel):
         return annotation
@@ -82,7 +93,7 @@ def _model_in(annotation) -> type[BaseModel] | None:
     return None
 
 
-def _user_error(exc: ValidationError) -> UserError:
+def _user_error(exc: ValidationError, units: str) -> UserError:
     errors = exc.errors(include_url=False)
     # a misspelt key also shows up as a missing one: report the misspelling
     err = next((e for e in errors if e["type"] == "extra_forbidden"), errors[0])
@@ -108,11 +119,7 @@ def _user_error(exc: ValidationError) -> UserError:
         accepted = msg.replace("Input should be ", "")
         msg = f"{err.get('input')!r} is not accepted"
     elif kind in ("greater_than", "greater_than_equal", "less_than", "less_than_equal"):
-        accepted = msg.replace("Input should be ", "must be ")
-        value = err.get("input")
-        msg = f"{value!r} is out of range"
-        if isinstance(value, str):
-            msg = f"{value!r} is out of range (in mm or degrees)"
+        msg, accepted = range_problem(err, _kind_at(loc), units)
     elif msg.endswith(")") and " (" in msg:
         msg, accepted = msg[:-1].split(" (", 1)
     return UserError(_key(loc), msg, accepted)

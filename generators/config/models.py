@@ -9,7 +9,7 @@ from typing import Annotated, Literal
 
 from pydantic import BaseModel, BeforeValidator, ConfigDict, Field, ValidationInfo, field_validator, model_validator
 
-from generators.config.fields import Angle, Length, Speed, _units, _wrap
+from generators.config.fields import Angle, Azimuth, Length, Speed, _units, _wrap
 from generators.errors import UserError
 from generators.units import length_mm
 
@@ -90,10 +90,11 @@ class Hub(Section):
 
 class Spreaders(Section):
     count: Annotated[int, Field(ge=3, le=12)]
-    diameter: PositiveLength
+    # a pole under 2 mm is no spreader; the bound keeps the wind stress finite (common practice)
+    diameter: Annotated[Length, Field(ge=2)]
     fit: Annotated[Length, Field(ge=0, le=10)] = DEFAULT_SPREADER_FIT_MM
     elevation: Annotated[Angle, Field(ge=0, le=45)] = 0.0
-    first_azimuth: Angle = 0.0
+    first_azimuth: Azimuth = 0.0
     socket_depth: Literal["to-bore"] | float = "to-bore"
     tip_radius: PositiveLength | None = None
     tip_spacing: PositiveLength | None = None
@@ -119,6 +120,12 @@ class Spreaders(Section):
             raise ValueError("tip_spacing: give tip_radius or tip_spacing, not both")
         if self.wall is not None and self.inner_diameter is not None:
             raise ValueError("inner_diameter: give wall or inner_diameter, not both")
+        if self.inner_diameter is not None and self.inner_diameter >= self.diameter:
+            raise ValueError("inner_diameter: the pole's inside diameter must be smaller than"
+                             " spreaders.diameter (a tube has a wall)")
+        if self.wall is not None and 2 * self.wall >= self.diameter:
+            raise ValueError("wall: two walls must be thinner than spreaders.diameter"
+                             " (leave wall out for a solid rod)")
         return self
 
 

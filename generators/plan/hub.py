@@ -303,7 +303,7 @@ class _Planner:
                 hid = f"T{sock.spreader}" + ("" if ss.per_spreader == 1 else "ab"[j])
                 if not (r_d < p < depth - r_d):
                     raise UserError("set_screws.position", f"{self.fmt(p)} is not along the socket",
-                                    f"between {self.fmt(2 * r_d)} and {self.fmt(depth - 2 * r_d)} from the outer face")
+                                    f"more than {self.fmt(r_d)} and less than {self.fmt(depth - r_d)} from the outer face")
                 P = sock.point_at(p)
                 if ss.face == "top":
                     entry, axis, d = (P[0], P[1], self.T), (0.0, 0.0, -1.0), self.T - P[2]

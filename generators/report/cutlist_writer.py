@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import csv
 import io
+import math
 
 from generators.manifest import plan_record, previous_manifest
 from generators.plan.cutlist import CutCase
@@ -78,9 +79,11 @@ def write_cutlist(ctx) -> None:
 def _compare_previous(ctx, primary: CutCase, units: str) -> None:
     prev = previous_manifest(ctx.folder.parent, ctx.config.name)
     spreaders = (prev or {}).get("spreaders")
-    old = [s.get("cut_length_mm") if isinstance(s, dict) else None for s in spreaders] \
-        if isinstance(spreaders, list) else []
-    if not old or any(not isinstance(v, (int, float)) for v in old):
+    if not isinstance(spreaders, list) or not all(isinstance(s, dict) for s in spreaders):
+        return  # an old or odd manifest: nothing to compare with
+    old = [s.get("cut_length_mm") for s in spreaders]
+    if not old or not all(isinstance(v, (int, float)) and not isinstance(v, bool) and math.isfinite(v)
+                          for v in old):
         return
     if len(old) != len(primary.lines):
         ctx.summary.append("  recut  the spreader count changed since the previous build")

@@ -10,6 +10,8 @@ from __future__ import annotations
 import math
 from typing import Any
 
+from generators.config.text import markdown_text
+
 from generators.plan.model import Hole, HubPlan
 from generators.units import format_both, format_length
 
@@ -112,7 +114,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     mat = get_material(plan.material)
     md.add(f"# Hub report: {plan.name}", "")
     if cfg.description:
-        md.add(cfg.description, "")
+        md.add(markdown_text(cfg.description), "")
     md.add("## What was built", "")
     sockets = [h for h in plan.holes if h.kind == "socket"]
     sp = cfg.spreaders

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from html import escape as html_escape
+
 from generators.manifest import file_hashes, plan_record
 from generators.report.report_md import render_report
 
@@ -61,5 +63,6 @@ def _html(text: str, title: str) -> str | None:
         from markdown_it import MarkdownIt
     except ImportError:  # pragma: no cover - rich depends on markdown-it-py
         return None
-    body = MarkdownIt("commonmark").enable("table").render(text)
-    return _HTML_HEAD.format(title=title) + body + "</body></html>\n"
+    # html=False: any raw HTML in the text (a config string) is shown as text, never run
+    body = MarkdownIt("commonmark", {"html": False}).enable("table").render(text)
+    return _HTML_HEAD.format(title=html_escape(title)) + body + "</body></html>\n"

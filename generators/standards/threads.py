@@ -129,7 +129,7 @@ _UNIFIED_RE = re.compile(
 
 def _suggest(threads: list[Thread], major: float, pitch: float | None, n: int = 2) -> str:
     def score(t: Thread) -> float:
-        s = abs(t.major_mm - major) / major
+        s = abs(t.major_mm - major) / max(major, 1e-9)
         if pitch:
             s += abs(t.pitch_mm - pitch) / pitch
         return s
@@ -141,9 +141,15 @@ def _error(text: str, key: str, hint: str) -> UserError:
     return UserError(key, f"unknown thread {text!r}", f"{hint} {FORMS}".strip())
 
 
+def _positive(value: float, text: str, key: str, what: str) -> float:
+    if not (0 < value < 1e6):
+        raise _error(text, key, f"the {what} must be a positive number;")
+    return value
+
+
 def _parse_metric(m: re.Match, text: str, key: str) -> Thread:
-    d = float(m["d"])
-    p = float(m["p"]) if m["p"] else None
+    d = _positive(float(m["d"]), text, key, "diameter")
+    p = _positive(float(m["p"]), text, key, "pitch") if m["p"] else None
     metric = [t for t in _all() if not t.inch]
     if m["cls"] and m["cls"] != "6h":
         raise UserError(key, f"{text!r}: only class 6H tapped holes are tabulated", "drop the class or write 6H")
@@ -166,9 +172,9 @@ def _unified_sizes(m: re.Match) -> list[float] | None:
         return None if n is None else [0.060 + 0.013 * n]  # ASME B1.1 numbered sizes
     if "/" in size:
         num, den = size.split("/")
-        return [int(num) / int(den)] if int(den) else None
+        return [int(num) / int(den)] if int(den) and int(num) else None
     if "." in size:
-        return [float(size)]
+        return [float(size)] if float(size) > 0 else None
     n = int(size)
     return [1.0 * n, 0.060 + 0.013 * n] if n == 1 else [0.060 + 0.013 * n]
 
@@ -179,7 +185,7 @@ def _parse_unified(m: re.Match, text: str, key: str) -> Thread:
         raise UserError(key, f"{text!r}: only class 2B tapped holes are tabulated", "drop the class or write 2B")
     sizes = _unified_sizes(m)
     tpi = m["tpi"] or m["tpi2"]
-    tpi = float(tpi) if tpi else None
+    tpi = _positive(float(tpi), text, key, "threads per inch") if tpi else None
     series = m["series"].upper() if m["series"] else None
     pitch = MM_PER_IN / tpi if tpi else None
     if sizes is None:
@@ -215,6 +221,8 @@ def parse_thread(text: str, key: str = "thread") -> Thread:
     if not isinstance(text, str):
         raise UserError(key, f"expected a thread designation, got {text!r}", FORMS)
     norm = " ".join(text.strip().lower().split())
+    if len(norm) > 40 or re.search(r"\d{16}", norm):
+        raise _error(text, key, "a designation of at most 40 characters and 15 digits;")
     m = _METRIC_RE.match(norm)
     if m:
         return _parse_metric(m, text, key)
