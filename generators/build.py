@@ -142,13 +142,3 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
         saved = save_failed_config(cfg, target, config_path)
         raise KernelError(exc.key, exc.problem, f"a bug: please report it with {saved}") from None
     return BuildResult(name=cfg.name, folder=target, manifest=manifest, summary=ctx.summary)
-
-
-def build_with_masts(config_path: str | Path, out: str | Path | None = None, masts: tuple[str, ...] = (),
-                     force: bool = False) -> BuildResult:
-    """Plan the hub and every sleeve first (refusals before any file), then build."""
-    from generators.plan.reducer import plan_sleeves
-
-    cfg = load_config(config_path)
-    plan_sleeves(cfg, build_plan(cfg), tuple(masts))
-    return build_config(cfg, out, config_path=Path(config_path), masts=tuple(masts), force=force)

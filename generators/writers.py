@@ -12,7 +12,6 @@ import multiprocessing
 import os
 import threading
 import traceback
-from typing import Any
 
 from generators import signals
 from generators.errors import UserError

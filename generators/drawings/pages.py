@@ -13,6 +13,7 @@ import math
 from dataclasses import dataclass, field
 
 from generators.drawings.sheet import HOLES, Circle, Sheet, item_extent
+from generators.drawings.prose import info_lines
 
 PAPER_MM = {"a4": (210.0, 297.0), "letter": (215.9, 279.4)}  # ISO 216; ANSI/ASME Y14.1
 # Home inkjet and laser printers cannot print the outer 3-6 mm; 1/2 in keeps every line on
@@ -99,7 +100,7 @@ def _options(sheet: Sheet, paper: str) -> _Plan:
     for orientation in ("portrait", "landscape"):
         a = area(_size(paper, orientation))
         W, H = a[2] - a[0], a[3] - a[1]
-        lines = sheet.info_lines(int(W / CHAR_MM))
+        lines = info_lines(sheet, int(W / CHAR_MM))
         info_h = len(lines) * LINE_MM
         info_pages = len(_chunks(lines, int(H / LINE_MM)))
         if bw <= W and bh + GAP_MM + info_h <= H:
@@ -127,7 +128,7 @@ def layout(sheets: list[Sheet], paper: str) -> list[Page]:
         if opt.below:
             window = (cx - W / 2, y1 + PAD_MM - bh, cx + W / 2, y1 + PAD_MM)
             box = (ax0, ay1 - bh, ax1, ay1)
-            lines = sheet.info_lines(int(W / CHAR_MM))
+            lines = info_lines(sheet, int(W / CHAR_MM))
             pages.append(Page(len(pages) + 1, sheet, paper, size, opt.orientation, window, box,
                               info=lines, info_top_mm=ay1 - bh - GAP_MM))
             continue
@@ -163,7 +164,7 @@ def layout(sheets: list[Sheet], paper: str) -> list[Page]:
                                   joins=[j for j in joins if _crosses(j, win)], marks=inside))
         isize = _size(paper, "portrait")
         ia = area(isize)
-        lines = sheet.info_lines(int((ia[2] - ia[0]) / CHAR_MM))
+        lines = info_lines(sheet, int((ia[2] - ia[0]) / CHAR_MM))
         parts = _chunks(lines, int((ia[3] - ia[1]) / LINE_MM))
         for k, part in enumerate(parts, 1):
             pages.append(Page(len(pages) + 1, sheet, paper, isize, "portrait", info=part, info_top_mm=ia[3],

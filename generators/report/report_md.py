@@ -7,7 +7,6 @@ Sizes are in the config's units; drills by their shop names.
 
 from __future__ import annotations
 
-import math
 from typing import Any
 
 from generators.config.text import markdown_text
