@@ -1,0 +1,73 @@
+"""Design rules run on the plan (no solids), in groups with an explicit order.
+
+Each rule gives ``pass``, ``warn`` or ``fail``, the worst figure, its limit and what to change.
+No rule reads state another rule set: each is a pure function of the config, the plan and
+its sleeves.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from generators.config.models import Config
+from generators.plan.model import HubPlan
+from generators.plan.rules.base import (  # noqa: F401 - the rules' public vocabulary
+    COMMON, FAIL, MIN_WALL_MM, PASS, WARN, RuleResult, speed_text)
+from generators.plan.rules.fasteners import FastenerRules
+from generators.plan.rules.placement import PlacementRules, estimate_volume_mm3  # noqa: F401
+from generators.plan.rules.walls import WallRules
+from generators.plan.rules.wind import WindRules
+
+# The order the rules run and are shown in, group by group.
+GROUPS = (
+    ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore")),
+    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length")),
+    ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt")),
+    ("sleeves", ("rule_sleeve_wall",)),
+    ("mass", ("rule_mass",)),
+)
+RULES = tuple(name for _, names in GROUPS for name in names)
+
+
+class _Rules(WallRules, FastenerRules, PlacementRules, WindRules):
+    pass
+
+
+@dataclass(frozen=True)
+class Checks:
+    """Rule results and the wind estimate, plus figures the report shows."""
+
+    rules: tuple[RuleResult, ...]
+    wind: object  # loads.WindResult
+    set_screws: tuple[dict, ...]
+    sleeves: tuple[dict, ...]
+    mass_estimate_g: float
+
+    def as_json(self) -> dict:
+        """``{"rules": [...], "wind": {...}}``: what ``check --json`` prints and the manifest keeps."""
+        return {"rules": [r.as_json() for r in self.rules], "wind": self.wind.as_json()}
+
+
+def evaluate(cfg: Config, plan: HubPlan, sleeves: tuple = ()) -> Checks:
+    """Every rule and the wind estimate for a plan (``sleeves``: its sleeve plans)."""
+    from generators.plan.loads import wind_estimate
+
+    r = _Rules(cfg, plan, sleeves)
+    results = [getattr(r, name)() for name in RULES]
+    wind = wind_estimate(cfg, plan, r.engaged_set_screw_mm())
+    results += r.wind_rules(wind)
+    return Checks(rules=tuple(results), wind=wind, set_screws=tuple(r.set_screw_fit()),
+                  sleeves=tuple(r.sleeves()), mass_estimate_g=r.mass_estimate_g())
+
+
+def run_checks(cfg: Config, plan: HubPlan, sleeves: tuple = ()) -> dict:
+    """``{"rules": [...], "wind": {...}}`` as plain data."""
+    return evaluate(cfg, plan, sleeves).as_json()
+
+
+def failed(checks: dict) -> list[dict]:
+    return [r for r in checks["rules"] if r["status"] == FAIL]
+
+
+def warned(checks: dict) -> list[dict]:
+    return [r for r in checks["rules"] if r["status"] == WARN]

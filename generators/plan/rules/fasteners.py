@@ -1,0 +1,123 @@
+"""Fastener rules: thread engagement and set-screw length from stock."""
+
+from __future__ import annotations
+
+import math
+
+from generators.plan.rules.base import (  # noqa: F401
+    COMMON, DEPTH_MIN_D, DEPTH_RECOMMENDED_D, EDGE_MIN_D, EDGE_RECOMMENDED_D, ENGAGE_MIN_D, FAIL,
+    MASS_WARN_FRACTION, PASS, POCKETS, RECOMMENDED_OVER_MIN, SET_SCREW_MIN_ENGAGED_D, SF_BEARING, SF_FAIL,
+    SF_SET_SCREW, SF_SPREADER, SLEEVE_MIN_MM, SLEEVE_RECOMMENDED_MM, WALL_OVER_SOCKET, WARN, RuleResult,
+    RulesBase, _grade, speed_text)
+
+
+class FastenerRules(RulesBase):
+    def rule_thread_engagement(self) -> RuleResult:
+        tapped = [h for h in self.plan.holes if h.thread and h.kind not in POCKETS]
+        if not tapped:
+            return self._na("thread-engagement", "x D", "no tapped holes")
+        factor = self.mat.engagement_factor
+        worst = None
+        for h in tapped:
+            le = self._engaged(h)
+            ratio = le / self._thread(h).major_mm
+            if worst is None or ratio < worst[2]:
+                worst = (h, le, ratio)
+        h, le, ratio = worst
+        status, limit = _grade(ratio, ENGAGE_MIN_D, factor)
+        msg = f"{h.id} ({h.thread}): {self.fmt(le)} of thread in {self.mat.name} = {ratio:.2f} x D"
+        if status != PASS:
+            msg += (f"; want {factor:g} x D = {self.fmt(factor * self._thread(h).major_mm)}: a thicker hub,"
+                    " a finer or smaller thread, a threaded insert, or a deeper hole")
+        return RuleResult("thread-engagement", status, ratio, limit, "x D", msg,
+                          f"materials table engagement factor ({self.mat.id}: {factor:g} x D; {COMMON});"
+                          f" under {ENGAGE_MIN_D:g} x D fails")
+
+    def set_screw_fit(self) -> list[dict]:
+        """Per set screw: distance from its face to the seated pole, thread length, the
+        chosen or configured stock length and how much of it sits in the thread."""
+        from generators.standards.fasteners import set_screw_lengths
+        from generators.standards.threads import parse_thread
+
+        ss = self.cfg.set_screws
+        out = []
+        for h in (h for h in self.plan.holes if h.kind == "set_screw"):
+            sock = next(s for s in self.sockets if s.spreader == h.spreader)
+            e = self._elev(sock)
+            # the pole pushed onto the far side of its socket by the screw
+            gap_to_pole = h.depth_mm - (self.cfg.spreaders.diameter - sock.radius_mm) / math.cos(e)
+            pocket = None if h.thread else self._pocket(h)
+            if h.thread:
+                thread, thread_len, nut_far = h.thread, self._engaged(h), None
+            elif pocket is not None and pocket.thread:
+                # a captive nut: the screw must run through it; it sits across the hole
+                t_nut = sum((pocket.entry_mm[i] - h.entry_mm[i]) * h.axis[i] for i in range(3))
+                thread, nut_far = pocket.thread, t_nut + pocket.depth_mm / 2
+                thread_len = pocket.depth_mm
+            else:
+                continue
+            lengths = set_screw_lengths(thread)
+            D = parse_thread(thread).major_mm
+            if ss is not None and ss.length is not None:
+                length, chosen = ss.length, False
+            else:
+                fit = [x for x in lengths if x <= gap_to_pole + 1e-9]
+                length, chosen = (max(fit) if fit else min(lengths)), True
+            if nut_far is None:
+                in_thread = length - (gap_to_pole - thread_len)
+            else:  # overlap of the screw [gap - L, gap] with the nut [far - h, far]
+                in_thread = min(gap_to_pole, nut_far) - max(gap_to_pole - length, nut_far - thread_len)
+                if chosen:  # the shortest stock length that runs through the whole nut
+                    ok = [x for x in lengths if x <= gap_to_pole + 1e-9 and gap_to_pole - x <= nut_far - thread_len + 1e-9]
+                    if ok:
+                        length = min(ok)
+                        in_thread = min(gap_to_pole, nut_far) - max(gap_to_pole - length, nut_far - thread_len)
+            out.append({"hole": h.id, "thread": thread, "length_mm": length, "chosen": chosen,
+                        "gap_to_pole_mm": gap_to_pole, "thread_mm": thread_len,
+                        "in_thread_mm": in_thread, "major_mm": D, "captive_nut": nut_far is not None,
+                        "stock_mm": lengths})
+        return out
+
+    def rule_set_screw_length(self) -> RuleResult:
+        fits = self.set_screw_fit()
+        if not fits:
+            return self._na("set-screw-length", "mm", "no set screws")
+        src = f"stock lengths (ISO 4026/4029, ASME B18.3; from memory); {SET_SCREW_MIN_ENGAGED_D:g} x D in the thread, {COMMON}"
+
+        def grade(f):
+            proud = f["length_mm"] - f["gap_to_pole_mm"]
+            if proud > 1e-6:
+                return FAIL, f"stands {self.fmt(proud)} proud of the face when tight"
+            if f["in_thread_mm"] <= 0:
+                return FAIL, "does not reach the pole while still in its thread"
+            if f["in_thread_mm"] < self._need_in_thread(f) - 1e-9:
+                return WARN, f"only {self.fmt(f['in_thread_mm'])} of it is in the thread when tight"
+            return PASS, ""
+
+        order = {FAIL: 0, WARN: 1, PASS: 2}
+        graded = [(f, *grade(f)) for f in fits]
+        f, status, why = min(graded, key=lambda t: (order[t[1]], t[0]["in_thread_mm"]))
+        size = f"{f['thread']} x {self.fmt(f['length_mm'])}"
+        if status == PASS:
+            msg = (f"{f['hole']}: {size} {'(chosen from stock)' if f['chosen'] else ''} reaches the pole with"
+                   f" {self.fmt(f['in_thread_mm'])} in the thread, {self.fmt(f['gap_to_pole_mm'] - f['length_mm'])}"
+                   " below the face").replace("  ", " ")
+        else:
+            fit = [x for x in f["stock_mm"] if x <= f["gap_to_pole_mm"] + 1e-9
+                   and x - (f["gap_to_pole_mm"] - f["thread_mm"]) >= self._need_in_thread(f) - 1e-9]
+            hint = (f"use {f['thread']} x {self.fmt(max(fit))} (set_screws.length)" if fit else
+                    "no stock length fits: a thicker hub, or a set screw position where the hole is longer")
+            msg = f"{f['hole']}: {size} {why}; {hint}"
+        return RuleResult("set-screw-length", status, f["length_mm"], f["gap_to_pole_mm"], "mm", msg, src)
+
+    def _need_in_thread(self, f: dict) -> float:
+        """Thread a tight set screw must still have: 1 x D in a tapped hole, or (nearly)
+        the whole captive nut (common practice)."""
+        if f.get("captive_nut"):
+            return 0.9 * f["thread_mm"]
+        return SET_SCREW_MIN_ENGAGED_D * f["major_mm"]
+
+    def engaged_set_screw_mm(self) -> float | None:
+        """Least full thread of any tapped set-screw hole (what the wind estimate's hold uses)."""
+        vals = [self._engaged(h) for h in self.plan.holes if h.kind == "set_screw" and h.thread]
+        return min(vals) if vals else None
