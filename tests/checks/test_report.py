@@ -51,9 +51,9 @@ def test_drilling_order_bore_then_sockets_then_cross_holes(built):
     kinds = [k for _, k in heads]
     assert kinds[0] == "bore" and kinds.index("holes") > max(i for i, k in enumerate(kinds) if k == "sockets")
     sched = _section(built["md"], "Drill schedule")
-    top = sched[sched.index(": holes"):]
+    top = sched[sched.index("### 1. top"):]
     # per face: punch before drill before tap (ISO M6 tap drill 5.0 mm in metal, 5.1 mm chosen for acetal)
-    assert top.index("centre punch") < top.index("tap drill") < top.index("M6x1 tap")
+    assert top.index("centre-punch") < top.index("tap drill for M6x1") < top.index("M6x1 tap")
 
 
 def test_manifest_checks_equal_check_json(built):
