@@ -8,7 +8,7 @@ import sys
 
 import pytest
 
-from helpers import INCH, METRIC, ROOT, modified, toml_text
+from .helpers import INCH, METRIC, ROOT, modified, toml_text
 
 RULE_KEYS = {"id", "status", "value", "limit", "unit", "message", "source"}
 WIND_KEYS = {"speed_m_s", "pressure_pa", "force_per_spreader_n", "moment_at_hub_nm", "spreader_stress_mpa",

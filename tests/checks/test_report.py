@@ -10,7 +10,7 @@ import pytest
 from generators.build import build
 from generators.plan.rules import run_checks
 from generators.report.report_md import SECTIONS
-from helpers import INCH, METRIC, checks_for, demo
+from .helpers import INCH, METRIC, checks_for, demo
 
 pytestmark = pytest.mark.slow
 

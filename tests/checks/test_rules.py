@@ -13,7 +13,7 @@ import pytest
 
 from generators.errors import UserError
 from generators.plan.rules import evaluate, estimate_volume_mm3
-from helpers import INCH, INCH_CASE, METRIC, METRIC_CASE, checks_for, demo, modified, rule
+from .helpers import INCH, INCH_CASE, METRIC, METRIC_CASE, checks_for, demo, modified, rule
 
 GEOMETRIC = ("socket-wall", "socket-web", "socket-bore", "thread-engagement", "set-screw-length",
              "edge-distance", "socket-depth", "socket-tilt", "sleeve-wall", "mass")

@@ -20,7 +20,7 @@ import pytest
 trapezoid = getattr(np, "trapezoid", None) or np.trapz  # renamed in numpy 2
 
 from generators.plan import loads
-from helpers import INCH_CASE, METRIC_CASE, checks_for, demo, modified
+from .helpers import INCH_CASE, METRIC_CASE, checks_for, demo, modified
 
 
 def test_metric_demo_by_hand():

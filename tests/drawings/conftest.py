@@ -8,18 +8,13 @@ from __future__ import annotations
 
 import copy
 import pathlib
-import sys
 import tomllib
 from dataclasses import dataclass
 
 import pytest
 
 ROOT = pathlib.Path(__file__).resolve().parents[2]
-HUB_TESTS = ROOT / "tests" / "hub"
-if str(HUB_TESTS) not in sys.path:
-    sys.path.insert(0, str(HUB_TESTS))
-
-from cases import all_cases, demo  # noqa: E402
+from tests.support.cases import all_cases, demo
 
 # An inch block too big for one Letter page: its top face is tiled 2 x 2.
 BIG_BLOCK_INCH = {

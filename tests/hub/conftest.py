@@ -3,18 +3,13 @@
 from __future__ import annotations
 
 import pathlib
-import sys
 from dataclasses import dataclass, field
 
 import pytest
 
-ROOT = pathlib.Path(__file__).resolve().parents[2]
-HERE = pathlib.Path(__file__).resolve().parent
-for p in (str(ROOT), str(HERE)):
-    if p not in sys.path:
-        sys.path.insert(0, p)
+from tests.support.cases import all_cases
 
-from cases import all_cases  # noqa: E402
+ROOT = pathlib.Path(__file__).resolve().parents[2]
 
 CASES = all_cases()
 

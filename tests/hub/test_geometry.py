@@ -13,8 +13,8 @@ import math
 import numpy as np
 import pytest
 
-from conftest import CASES
-from probes import Oracle, perpendiculars, unit
+from .conftest import CASES
+from .probes import Oracle, perpendiculars, unit
 
 pytestmark = pytest.mark.slow
 

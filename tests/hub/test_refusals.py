@@ -11,9 +11,9 @@ import sys
 
 import pytest
 
-from conftest import ROOT
-from cases import demo
-import tomlout
+from .conftest import ROOT
+from tests.support.cases import demo
+from . import tomlout
 
 
 def metric(**changes) -> dict:

@@ -10,7 +10,7 @@ from collections import Counter
 import numpy as np
 import pytest
 
-from conftest import CASES
+from .conftest import CASES
 
 pytestmark = pytest.mark.slow
 

@@ -12,7 +12,7 @@ import copy
 import pathlib
 import tomllib
 
-ROOT = pathlib.Path(__file__).resolve().parents[2]
+ROOT = pathlib.Path(__file__).resolve().parents[2]  # the project folder
 DEMOS = {
     "metric-demo": ROOT / "configs" / "six-spreader-portable.toml",
     "inch-demo": ROOT / "configs" / "four-spreader-conduit.toml",
