@@ -106,6 +106,13 @@ class _Face:
     def fill(self) -> None:  # pragma: no cover - overridden
         raise NotImplementedError
 
+    def breaks_into_all(self, hs: list[Hole]) -> str:
+        """What a group of holes breaks into: one socket named, several as "the sockets"."""
+        words = {self.breaks_into(h) for h in hs}
+        if len(words) == 1:
+            return words.pop()
+        return "each breaks into its socket" if all(h.kind == HoleKind.SET_SCREW for h in hs) else ""
+
     def breaks_into(self, h: Hole) -> str:
         if h.kind == HoleKind.SET_SCREW and h.spreader is not None:
             sock = next((s.socket_hole for s in self.plan.spreaders if s.id == h.spreader), None)
@@ -163,7 +170,7 @@ class _Machined(_Face):
             hs = [h for h, _ in pairs]
             h0, c0 = pairs[0]
             why = self._why(h0)
-            extra = "; ".join(x for x in (why, self.breaks_into(h0)) if x)
+            extra = "; ".join(x for x in (why, self.breaks_into_all(hs)) if x)
             if method == "drill":
                 self.add("drill", hs, drill_label(h0.drill, h0.diameter_mm, self.units), c0.drill.diameter_mm,
                          depth, through, stage, tilt, extra)
