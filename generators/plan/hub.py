@@ -414,11 +414,17 @@ class _Planner:
                 dia = spec.diameter
                 drill = drill_name_for(dia, self._series_for(None))
                 thread, pct = None, None
+            if spec.through is False and spec.depth is None:
+                raise UserError(f"{key}.through", "through = false needs the blind hole's depth",
+                                f"give {key}.depth, or leave through out for a through hole")
             through = spec.depth is None
             depth = self.T if through else spec.depth
-            if depth > self.T:
-                raise UserError(f"{key}.depth", f"{self.fmt(depth)} is deeper than the hub",
-                                f"up to {self.fmt(self.T)}, or leave depth out for a through hole")
+            if not through and depth > self.T - L.MIN_WEB_MM + 1e-9:
+                raise UserError(f"{key}.depth", f"{self.fmt(depth)} leaves {self.fmt(max(self.T - depth, 0))} under"
+                                f" the hole", f"up to {self.fmt(self.T - L.MIN_WEB_MM)}, or no depth for a through hole")
+            if cb is not None and not through and cb.depth_mm >= depth - 1e-9:
+                raise UserError(f"{key}.counterbore", f"a {self.fmt(cb.depth_mm)} counterbore in a {self.fmt(depth)}"
+                                " deep hole", f"a hole deeper than {self.fmt(cb.depth_mm)}, or no counterbore")
             if spec.face == "top":
                 entry, axis, face = (spec.at[0], spec.at[1], self.T), (0.0, 0.0, -1.0), self.faces[0]
             else:

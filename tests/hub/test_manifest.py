@@ -58,7 +58,7 @@ def test_manifest_has_every_field_of_item_5(build_case, name):
         assert set(s) >= {"id", "azimuth_deg", "elevation_deg", "socket_hole"}
         assert s["socket_hole"] in ids
     # files: name -> sha256 of what is on disk (FIPS 180-4 via hashlib)
-    skip = ("manifest.json", ".hubwright-build.json")  # the ownership marker is written after the manifest
+    skip = ("manifest.json", ".hubwright-build.json", "changes.json")  # written after the manifest
     on_disk = sorted(p.name for p in b.folder.rglob("*") if p.is_file() and p.name not in skip)
     assert {"hub.step", "hub.stl", "hub.3mf"} <= set(m["files"])
     assert sorted(m["files"]) == sorted(p.relative_to(b.folder).as_posix() for p in b.folder.rglob("*")

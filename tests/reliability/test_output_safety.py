@@ -26,7 +26,7 @@ def run_build(*args, **kw):
 def files_match_manifest(folder: Path) -> bool:
     m = json.loads((folder / "manifest.json").read_text())
     on_disk = sorted(p.relative_to(folder).as_posix() for p in folder.rglob("*")
-                     if p.is_file() and p.name not in ("manifest.json", ".hubwright-build.json"))
+                     if p.is_file() and p.name not in ("manifest.json", ".hubwright-build.json", "changes.json"))
     if on_disk != sorted(m["files"]):
         return False
     return all(hashlib.sha256((folder / f).read_bytes()).hexdigest() == h for f, h in m["files"].items())

@@ -1,0 +1,56 @@
+"""Blind holes keep a floor, counterbores stay inside their hole, and ``through = false`` is
+never silently ignored (the 1.5 mm web is the hard limit of generators/plan/limits.py,
+common practice)."""
+
+from __future__ import annotations
+
+import pytest
+
+from generators.config.load import parse_config
+from generators.design import design
+from generators.errors import UserError
+from generators.plan.limits import MIN_WEB_MM
+from tests.checks.helpers import demo
+
+
+def _with_hole(**hole) -> dict:
+    data = demo()
+    thickness = data["hub"]["thickness"]
+    spec = {"id": "X1", "face": "top", "at": [0.0, -40.0], "diameter": 6.0, **hole}
+    data["holes"] = [spec]
+    return data, thickness
+
+
+def _refusal(data) -> UserError:
+    with pytest.raises(UserError) as exc:
+        design(parse_config(data))
+    return exc.value
+
+
+def test_blind_hole_deeper_than_the_floor_allows_is_refused():
+    data, T = _with_hole(depth=None)
+    data["holes"][0]["depth"] = T - 0.1
+    err = _refusal(data)
+    assert err.key == "holes[0].depth" and "under the hole" in err.problem
+
+
+def test_blind_hole_with_its_floor_builds():
+    data, T = _with_hole()
+    data["holes"][0]["depth"] = T - MIN_WEB_MM - 0.5
+    d = design(parse_config(data))
+    h = d.plan.hole("X1")
+    assert not h.through and d.plan.body.thickness_mm - h.depth_mm >= MIN_WEB_MM
+
+
+def test_through_false_without_a_depth_is_refused():
+    data, _ = _with_hole(through=False)
+    err = _refusal(data)
+    assert err.key == "holes[0].through"
+
+
+def test_counterbore_deeper_than_its_hole_is_refused():
+    data, _ = _with_hole(clearance="M12", counterbore=True, depth=2)
+    del data["holes"][0]["diameter"]
+    data["holes"][0]["at"] = [0.0, -45.0]
+    err = _refusal(data)
+    assert err.key == "holes[0].counterbore"  # ISO 4762 M12 head 12 mm high: 12.5 mm counterbore
