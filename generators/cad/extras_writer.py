@@ -4,6 +4,7 @@ sockets), the spreader tip cap ([tip_cap]) and the print checks of a printed hub
 from __future__ import annotations
 
 from generators.cad.export import mesh_of, write_3mf, write_step, write_stl
+from generators.plan.kinds import is_pocket
 from generators.units import format_both
 
 
@@ -89,13 +90,18 @@ def write_print_checks(ctx) -> None:
     import trimesh
 
     from generators.cad.printed import print_problems, threemf_unit
-    from generators.plan.printed import BRIDGE_LIMIT_MM, MIN_WALL_LINES, OVERHANG_DEG, min_wall_mm
+    from generators.plan.printed import (
+        BRIDGE_LIMIT_MM,
+        MIN_WALL_LINES,
+        OVERHANG_DEG,
+        min_wall_mm,
+    )
 
     mesh = trimesh.load(ctx.folder / "hub.stl", force="mesh")
     problems = print_problems(mesh)
     nuts: dict[tuple, int] = {}
     for h in ctx.plan.holes:
-        if h.kind in ("nut_pocket", "insert_pocket"):
+        if is_pocket(h):
             key = (h.kind, h.thread, h.nut or h.insert)
             nuts[key] = nuts.get(key, 0) + 1
     pr = ctx.config.print

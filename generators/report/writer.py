@@ -5,6 +5,7 @@ from __future__ import annotations
 from html import escape as html_escape
 
 from generators.manifest import file_hashes, plan_record
+from generators.plan.kinds import is_pocket
 from generators.report.report_md import render_report
 
 REPORT_MD = "report.md"
@@ -24,7 +25,7 @@ def _labels(plan) -> dict[str, tuple]:
 
     out = {}
     for h in plan.holes:
-        if h.kind in ("nut_pocket", "insert_pocket"):
+        if is_pocket(h):
             continue
         face = plan.face(h.face)
         if h.kind in ("socket", "set_screw", "clamp", "extra") and visible(h.entry_mm, face.normal):
@@ -33,7 +34,7 @@ def _labels(plan) -> dict[str, tuple]:
 
 
 def write_report(ctx) -> None:
-    plan, cfg = ctx.plan, ctx.config
+    plan = ctx.plan
     preview = None
     stl = ctx.folder / "hub.stl"
     if stl.is_file():
@@ -42,7 +43,6 @@ def write_report(ctx) -> None:
         render_preview(stl, ctx.folder / PREVIEW, f"{plan.name}: {plan.mast_designation} mast",
                        labels=_labels(plan))
         preview = PREVIEW
-    checks = ctx.design.checks
     manifest = plan_record(plan, ctx.volume_mm3)
     manifest.update(ctx.manifest)
     manifest["files"] = {**file_hashes(ctx.folder), REPORT_MD: "", REPORT_HTML: ""}

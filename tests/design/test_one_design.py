@@ -4,12 +4,11 @@ operations in the same order, and a build computes its design exactly once."""
 from __future__ import annotations
 
 import json
-import re
+import pathlib
 
-import pymupdf
 import pytest
 
-import pathlib
+from tests.support.operations import operation_mismatches
 
 CONFIGS = pathlib.Path(__file__).resolve().parents[2] / "configs"
 
@@ -24,60 +23,16 @@ def builds(tmp_path_factory):
     return {name: build(CONFIGS / name, out) for name in DEMOS}
 
 
-def _report_rows(md: str) -> list[tuple[str, int, tuple[str, ...], str]]:
-    """(face, step, holes, tool) for every row of the report's schedule tables."""
-    rows, face = [], None
-    for line in md.splitlines():
-        head = re.match(r"^### \d+\. (\S+)", line)
-        if head:
-            face = head.group(1)
-            continue
-        if line.startswith("## ") and face is not None and not line.startswith("### "):
-            face = None
-        cells = [c.strip() for c in line.strip().strip("|").split("|")]
-        if face and line.startswith("| ") and cells and cells[0].isdigit():
-            holes = tuple(h for h in cells[2].split(", ") if h and h != "-")
-            rows.append((face, int(cells[0]), holes, cells[3]))
-    return rows
-
-
 @pytest.mark.slow
 @pytest.mark.parametrize("demo", DEMOS)
-def test_report_and_manifest_list_the_same_operations(builds, demo):
+def test_report_templates_and_manifest_list_the_same_operations(builds, demo):
     r = builds[demo]
+    assert r.manifest["operations"], "every demo has operations"
+    assert operation_mismatches(r.folder, r.manifest) == []
     ops = r.manifest["operations"]
-    assert ops, "every demo has operations"
-    manifest_rows = sorted((o["face"], o["step"], tuple(o["holes"]), o["tool"].replace("|", "/")) for o in ops)
-    report = (r.folder / "report.md").read_text(encoding="utf-8")
-    assert sorted(_report_rows(report)) == manifest_rows
     for face in {o["face"] for o in ops}:
         steps = sorted(o["step"] for o in ops if o["face"] == face)
         assert steps == list(range(1, len(steps) + 1)), face
-
-
-def _pdf_text(r, face: str) -> str:
-    tp = r.manifest["templates_pdf"]
-    doc = pymupdf.open(r.folder / tp["file"])
-    return " ".join(" ".join(doc[p["page"] - 1].get_text().split()) for p in tp["pages"] if p["face"] == face)
-
-
-@pytest.mark.slow
-@pytest.mark.parametrize("demo", DEMOS)
-def test_templates_follow_the_manifest_operations_in_order(builds, demo):
-    r = builds[demo]
-    if not r.manifest["templates_pdf"].get("made"):
-        pytest.skip("a printed hub has no templates")
-    for face in sorted({o["face"] for o in r.manifest["operations"]}):
-        text = _pdf_text(r, face)
-        at = -1
-        for o in sorted((o for o in r.manifest["operations"] if o["face"] == face), key=lambda o: o["step"]):
-            lead = f"{o['step']}. "
-            pos = text.find(lead, at + 1)
-            assert pos > at, (face, o["step"], "step number missing or out of order")
-            window = text[pos:pos + 400]
-            for hid in o["holes"]:
-                assert hid in window, (face, o["step"], hid)
-            at = pos
 
 
 @pytest.mark.slow

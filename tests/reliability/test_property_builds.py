@@ -15,6 +15,7 @@ import pytest
 from hypothesis import HealthCheck, assume, given, settings, strategies as st
 
 from generators.build import build_config
+from tests.support.operations import operation_mismatches
 from generators.config import parse_config
 from generators.errors import UserError
 from generators.plan.hub import build_plan
@@ -112,6 +113,7 @@ def test_accepted_configs_build_valid_parts(tmp_path_factory, data):
     assert abs(mesh.volume - solids[0].Volume()) <= 0.005 * solids[0].Volume()
     assert hole_voids(solids[0], manifest) == []
     assert drawing_mismatches(result.folder, manifest) == []
+    assert operation_mismatches(result.folder, manifest) == []  # templates, report, manifest agree
     # material just inside the body at mid-height on the outer face between sockets 1 and 2
     import math
 
