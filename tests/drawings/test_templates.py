@@ -290,6 +290,9 @@ def info_text(t, face: str) -> str:
 def test_drilling_order_in_shop_names_inch(templates):
     t = templates("quad-emt-frozen")
     text = info_text(t, "top")
+    # sizes typed from the drill tables, not from the code: #23 = 0.1540 in (ASME B94.11M number
+    # drills, from memory of the handbook's table); 82 deg countersink to the #10 flat head's
+    # 0.385 in (ASME B18.6.3, from memory)
     steps = ["Centre-punch every crosshair", "Drill #23 (0.1540 in): T1, T2, T3, T4",
              "Tap #10-24 UNC: T1, T2, T3, T4", "Countersink 82 deg to 0.385 in across: FP1, FP2"]
     where = [text.find(s) for s in steps]
