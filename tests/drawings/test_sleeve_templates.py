@@ -70,3 +70,14 @@ def test_sleeve_pdf_pages_carry_both_scale_bars(built):
             lengths = [math.dist(a, b) for a, b in segments(page, S.SCALE_BARS)]
             assert sum(abs(x - 283.46) <= 0.1 for x in lengths) == 1
             assert sum(abs(x - 288.0) <= 0.1 for x in lengths) == 1
+
+
+def test_rim_strip_is_as_long_as_the_surface_its_holes_are_drilled_on(built):
+    # wrapped on the sleeve body (not the flange), the strip's length is pi x the body OD
+    for rec, sleeve in zip(built.manifest["sleeve_templates"], built.manifest["reducers"]):
+        rims = [s for s in rec["sheets"] if s["face"] == "rim"]
+        for s in rims:
+            msp = ezdxf.readfile(built.folder / s["file"]).modelspace()
+            xs = [p[0] for e in msp.query(f'LWPOLYLINE[layer=="{S.OUTLINE}"]') for p in e.get_points()]
+            k = 25.4 if built.manifest["units_in_config"] == "in" else 1.0  # DXF in the config's units
+            assert (max(xs) - min(xs)) * k == pytest.approx(math.pi * sleeve["od_mm"], abs=0.1)
