@@ -160,7 +160,8 @@ class _Machined(_Face):
                 pilots.setdefault((p.label(self.units), p.diameter_mm, self._depth_key(h)), []).append(h)
         for (label, dia, (depth, through, tilt)), hs in pilots.items():
             limit = format_length(PILOT_ABOVE_MM[self.units], self.units)
-            self.add("pilot", hs, label, dia, depth, through, stage, tilt, f"drills over {limit} need one")
+            self.add("pilot", hs, label, dia, depth, through, stage, tilt,
+                     "; ".join(x for x in (f"drills over {limit} need one", self.reach(dia, hs[0])) if x))
         groups: dict[tuple, list[tuple[Hole, object]]] = {}
         for h, c in plans:
             key = (c.method, c.drill.label(self.units) if c.drill else "", c.tool, round(h.diameter_mm, 4),
@@ -173,15 +174,37 @@ class _Machined(_Face):
             extra = "; ".join(x for x in (why, self.breaks_into_all(hs)) if x)
             if method == "drill":
                 self.add("drill", hs, drill_label(h0.drill, h0.diameter_mm, self.units), c0.drill.diameter_mm,
-                         depth, through, stage, tilt, extra)
+                         depth, through, stage, tilt,
+                         "; ".join(x for x in (extra, self.reach(c0.drill.diameter_mm, h0)) if x))
             elif method == "open_up":
                 self.add("drill", hs, c0.drill.label(self.units), c0.drill.diameter_mm, depth, through, stage, tilt,
-                         "; ".join(x for x in (f"under size for {self.L(h0.diameter_mm)}", extra) if x))
+                         "; ".join(x for x in (f"under size for {self.L(h0.diameter_mm)}", extra,
+                                               self.reach(c0.drill.diameter_mm, h0)) if x))
                 self.add("open_up", hs, tool, h0.diameter_mm, depth, through, stage, tilt,
                          "; ".join(x for x in (f"to {self.L(h0.diameter_mm)}", c0.note, extra) if x))
             else:
                 self.add("cut", hs, tool, h0.diameter_mm, depth, through, stage, tilt,
                          "; ".join(x for x in (f"{self.L(h0.diameter_mm)}", c0.note, extra) if x))
+
+    def reach(self, drill_mm: float, h: Hole) -> str:
+        """What a drill this deep needs beyond a jobber drill (DIN 338 / 340 flutes, from memory)."""
+        from generators.standards.drill_lengths import flute_length_mm, series_reaching
+
+        length = h.depth_mm
+        jobber = flute_length_mm(drill_mm, "jobber")
+        if jobber is None or length <= jobber + 1e-9:
+            return ""
+        series = series_reaching(drill_mm, length)
+        if series == "long":
+            return (f"deeper than a jobber drill's {self.L(jobber)} of flute: use a long-series drill"
+                    f" ({self.L(flute_length_mm(drill_mm, 'long'))} of flute)")
+        longest = flute_length_mm(drill_mm, "long") or jobber
+        if h.through and length / 2 <= longest + 1e-9:
+            return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: drill half"
+                    " from each face with one")
+        return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: an extension"
+                " (aircraft) drill of 150 mm / 6 in or longer (from memory: common extra lengths), with"
+                " frequent pecking")
 
     def _depth_key(self, h: Hole) -> tuple:
         tilt = hole_tilt_deg(self.plan, h)

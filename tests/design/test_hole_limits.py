@@ -54,3 +54,15 @@ def test_counterbore_deeper_than_its_hole_is_refused():
     data["holes"][0]["at"] = [0.0, -45.0]
     err = _refusal(data)
     assert err.key == "holes[0].counterbore"  # ISO 4762 M12 head 12 mm high: 12.5 mm counterbore
+
+
+def test_a_hole_deeper_than_a_jobber_drill_names_the_longer_drill():
+    # the conduit demo's clamp holes run 3.8 in to the bore: past a #5 jobber's 47 mm and a long
+    # series' 87 mm of flute (DIN 338 / DIN 340, from memory)
+    from tests.checks.helpers import INCH
+
+    d = design(parse_config(demo(INCH)))
+    notes = [op.note for op in d.operations if op.operation == "drill" and "C1" in op.holes]
+    assert notes and "extension (aircraft) drill" in notes[0]
+    short = [op.note for op in d.operations if op.operation == "drill" and "T1" in op.holes]
+    assert short and "flute" not in short[0]  # 0.875 in: a jobber drill reaches

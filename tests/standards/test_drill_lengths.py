@@ -1,0 +1,22 @@
+"""Drill reach against DIN 338 (jobber) and DIN 340 (long series) flute lengths (from memory of
+the makers' tables that reprint them)."""
+
+import pytest
+
+from generators.standards.drill_lengths import flute_length_mm, series_reaching
+
+
+@pytest.mark.parametrize("d,flute", [(5.0, 52), (6.0, 57), (8.0, 75), (10.0, 87), (20.0, 140)])
+def test_jobber_flute_lengths_din_338(d, flute):
+    assert flute_length_mm(d, "jobber") == flute  # DIN 338 (from memory)
+
+
+@pytest.mark.parametrize("d,flute", [(5.0, 87), (8.0, 109), (10.0, 121)])
+def test_long_series_flute_lengths_din_340(d, flute):
+    assert flute_length_mm(d, "long") == flute  # DIN 340 (from memory)
+
+
+def test_shortest_series_that_reaches():
+    assert series_reaching(5.2, 40.0) == "jobber"
+    assert series_reaching(5.2, 80.0) == "long"  # past 52 mm of jobber flutes, within 87 mm
+    assert series_reaching(5.2, 96.5) is None  # a 3.8 in hole: no twist-drill series of these reaches
