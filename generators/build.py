@@ -135,6 +135,7 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
             ctx.summary.extend(check_summary(checks))
             run_writers(WRITERS, ctx)
             record = plan_record(d.plan, ctx.volume_mm3)
+            _add_tap_depths(record, d)
             record.update(ctx.manifest)
             manifest = write_manifest(tmp, record)
             write_changes(tmp, ctx.changes)
@@ -142,3 +143,13 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
         saved = save_failed_config(cfg, target, config_path)
         raise KernelError(exc.key, exc.problem, f"a bug: please report it with {saved}") from None
     return BuildResult(name=cfg.name, folder=target, manifest=manifest, summary=ctx.summary)
+
+
+def _add_tap_depths(record: dict[str, Any], d: Design) -> None:
+    """``tap_depth_mm`` on every tapped hole of the manifest, as the design's tap steps cut it."""
+    from generators.plan.operations import tap_depth_mm
+
+    tapped = {op_hole for op in d.operations if op.operation == "tap" for op_hole in op.holes}
+    for h in record.get("holes", []):
+        if h.get("id") in tapped:
+            h["tap_depth_mm"] = round(tap_depth_mm(d.plan.hole(h["id"]), d.material_class), 6)

@@ -225,7 +225,7 @@ class _Machined(_Face):
         taps: dict[tuple, list[Hole]] = {}
         for h in holes:
             if h.thread and h.kind not in POCKET_KINDS:
-                depth = tap_depth_mm(h)
+                depth = tap_depth_mm(h, self.mclass)
                 taps.setdefault((h.thread, None if h.through else round(depth, 4), h.through,
                                  h.thread_percent), []).append(h)
         for (thread, depth, through, pct), hs in taps.items():
@@ -248,8 +248,17 @@ class _Machined(_Face):
             self.add(op, hs, tool, dia, depth, False, STAGE_HOLES, None, note)
 
 
-def tap_depth_mm(h: Hole) -> float:
-    """How deep a tapped hole is threaded (its whole drilled depth today)."""
+def tap_depth_mm(h: Hole, material_class: str) -> float:
+    """How deep a tapped hole is threaded.
+
+    A blind extra hole needs only its engagement plus the tap's lead (1.5 D in metals, 2.5 D
+    in plastics and wood, 2 pitches of lead; generators.standards.engagement, common
+    practice), never more than it is drilled. Set-screw and clamp holes are threaded all the
+    way, because their screw is driven from this face to the pole or the mast."""
+    from generators.standards.engagement import tap_depth_mm as needed
+
+    if h.kind == HoleKind.EXTRA and not h.through:
+        return min(h.depth_mm, needed(h.thread, material_class))
     return h.depth_mm
 
 

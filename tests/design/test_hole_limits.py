@@ -66,3 +66,15 @@ def test_a_hole_deeper_than_a_jobber_drill_names_the_longer_drill():
     assert notes and "extension (aircraft) drill" in notes[0]
     short = [op.note for op in d.operations if op.operation == "drill" and "T1" in op.holes]
     assert short and "flute" not in short[0]  # 0.875 in: a jobber drill reaches
+
+
+def test_a_deep_blind_thread_is_tapped_only_as_deep_as_it_engages():
+    # M5x0.8 in 6061: 1.5 D = 7.5 mm of thread plus 2 pitches of plug-tap lead = 9.1 mm
+    # (engagement in metals, common practice; M5 pitch 0.8 mm from ISO 261)
+    data, T = _with_hole(thread="M5", depth=20.0)
+    del data["holes"][0]["diameter"]
+    data["hub"]["material"] = "aluminium-6061"
+    d = design(parse_config(data))
+    tap = next(op for op in d.operations if op.operation == "tap" and "X1" in op.holes)
+    assert tap.depth_mm == pytest.approx(1.5 * 5.0 + 2 * 0.8)
+    assert d.plan.hole("X1").depth_mm == pytest.approx(20.0)  # drilled deeper, threaded only where needed

@@ -73,3 +73,10 @@ def test_manifest_operations_are_plain_json(builds):
     keys = {"face", "step", "operation", "holes", "tool", "tool_diameter_mm", "depth_mm", "note"}
     assert all(keys <= set(o) for o in ops)
     assert json.loads(json.dumps(ops)) == ops
+
+
+def test_every_tapped_hole_has_its_tap_depth(builds):
+    for r in builds.values():
+        for h in r.manifest["holes"]:
+            if h["thread"] and h["kind"] not in ("nut_pocket", "insert_pocket"):
+                assert 0 < h["tap_depth_mm"] <= h["depth_mm"] + 1e-9, h["id"]
