@@ -25,6 +25,9 @@ def write_sleeve_templates(ctx) -> None:
     ops = dict(d.sleeve_operations)
     for s, plan in d.sleeve_plans:
         sheets = build_sheets(plan, cfg, ops[s.stem])
+        for sheet in sheets:
+            if sheet.face.kind == "top" and s.key_flat is not None:
+                _draw_key_flat(sheet, s)
         dxfs = []
         for sheet in sheets:
             dxf = folder / f"{s.stem}-{sheet.name}.dxf"
@@ -39,3 +42,25 @@ def write_sleeve_templates(ctx) -> None:
                         "previews": [f"{FOLDER}/{p.name}" for p in previews]})
     ctx.manifest["sleeve_templates"] = records
     ctx.summary.append(f"  sleeve templates {', '.join(r['pdf'] for r in records)} at 1:1")
+
+
+def _draw_key_flat(sheet, sleeve) -> None:
+    """The key flat inside the sleeve as a chord of its inside circle on the top template."""
+    import math
+
+    from generators.drawings.primitives import LABELS, OUTLINE, SMALL_MM, Label, Line
+    from generators.units import format_length
+
+    k, r = sleeve.key_flat, sleeve.id_mm / 2
+    d = min(k.distance_mm, r)
+    half = math.sqrt(max(r * r - d * d, 0.0))
+    t = math.radians(k.azimuth_deg)
+    n, along = (math.cos(t), math.sin(t)), (-math.sin(t), math.cos(t))
+    a = (d * n[0] + half * along[0], d * n[1] + half * along[1])
+    b = (d * n[0] - half * along[0], d * n[1] - half * along[1])
+    sheet.items.append(Line(OUTLINE, a, b))
+    sheet.items.append(Label(LABELS, ((d - 5.0) * n[0], (d - 5.0) * n[1]), "key flat", SMALL_MM, "center", "center"))
+    L = lambda mm: format_length(mm, sheet.units, fractions=False)  # noqa: E731
+    sheet.notes.append(f"Key flat: the inside is flat {L(d)} from the axis, facing azimuth"
+                       f" {k.azimuth_deg % 360:g} deg (the chord drawn inside the bore circle); file a matching"
+                       f" {L(k.mast_flat_depth_mm)} flat on the mast.")

@@ -138,3 +138,21 @@ def test_batch_builds_the_good_and_reports_the_bad(tmp_path):
     assert not (out / "batch-bad").exists()
     assert f"ok     {good}" in text and f"failed {bad}: hub: is required" in text
     assert "1 built, 1 failed of 2" in text
+
+
+def test_a_keyed_sleeve_shows_its_flat_on_the_top_template(built):
+    import ezdxf
+
+    for r in built["manifest2"]["reducers"]:
+        top = built["folder"] / "templates" / f"{r['files'][0].removesuffix('.step')}-top.dxf"
+        msp = ezdxf.readfile(top).modelspace()
+        chords = msp.query('LINE[layer=="OUTLINE"]')
+        if r["key_flat"] is None:
+            assert len(chords) == 0
+            continue
+        assert len(chords) == 1
+        (x0, y0), (x1, y1) = (chords[0].dxf.start.x, chords[0].dxf.start.y), (chords[0].dxf.end.x, chords[0].dxf.end.y)
+        a = math.radians(r["key_flat"]["azimuth_deg"])
+        # both ends lie on the flat: their distance along the flat's normal is its distance from the axis
+        for x, y in ((x0, y0), (x1, y1)):
+            assert x * math.cos(a) + y * math.sin(a) == pytest.approx(r["key_flat"]["distance_mm"], abs=0.01)
