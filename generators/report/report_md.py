@@ -86,8 +86,11 @@ def _positions(holes: list[Hole], plan: HubPlan, md: _Md) -> list[list[str]]:
         face = plan.face(h.face)
         u, v = (round(c, 6) + 0.0 for c in face.to_face(h.entry_mm))
         thread = h.thread or ""
-        rows.append([h.id, h.kind.replace("_", " "), md.L(u), md.L(v), md.L(h.diameter_mm), thread,
-                     h.note or ""])
+        # the designed size; a printed hole is modelled larger by its compensation
+        size = md.L(h.diameter_mm - h.compensation_mm)
+        if h.compensation_mm:
+            size += f" (modelled {md.L(h.diameter_mm)})"
+        rows.append([h.id, h.kind.replace("_", " "), md.L(u), md.L(v), size, thread, h.note or ""])
     return rows
 
 
