@@ -3,7 +3,7 @@
 Source key for each row of the table below:
   MH  = ASME B18.2.8-1999 (R2017) table 1a as reprinted in Machinery's Handbook 31st ed.,
         "Clearance Holes", p. 1741 (hole minimum diameters / nominal drills, 3 decimals)
-  T   = two independent published transcriptions of ASME B18.2.8 table 1a that agree
+  T   = from memory (ASME B18.2.8 table 1a), recalled with more confidence than MEM
   MEM = from memory (ASME B18.2.8 table 1a), not yet checked against a reprint
 """
 
