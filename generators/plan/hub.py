@@ -12,9 +12,11 @@ import math
 from generators.config.models import Config
 from generators.errors import UserError
 from generators.plan import limits as L
-from generators.plan.geometry import edge_distance, polar, segment_distance
-from generators.plan.model import Body, Counterbore, Countersink, Face, Hole, HubPlan, Spreader
-from generators.plan.holes import clearance_drill, drill_name_for, material_class, tap_hole
+from generators.plan.geometry import edge_distance, polar
+from generators.plan.hub_extras import ExtraHoles
+from generators.plan.hub_fasteners import FastenerHoles
+from generators.plan.model import Body, Face, Hole, HubPlan, Spreader
+from generators.plan.holes import drill_name_for, material_class
 from generators.units import format_length
 
 PUCK_OUTLINE_SEGMENTS = 180
@@ -25,7 +27,7 @@ def build_plan(cfg: Config) -> HubPlan:
     return _Planner(cfg).plan()
 
 
-class _Planner:
+class _Planner(FastenerHoles, ExtraHoles):
     def __init__(self, cfg: Config):
         self.cfg = cfg
         self.units = cfg.units
@@ -277,174 +279,3 @@ class _Planner:
         if d < need:
             raise UserError(key, f"{what} comes within {self.fmt(max(d, 0))} of the edge of the {face.id} face",
                             f"at least {self.fmt(need)} (half the hole diameter, common practice)")
-
-    def _set_screws(self, sockets: list[Hole]) -> list[Hole]:
-        ss = self.cfg.set_screws
-        if ss is None or ss.per_spreader == 0:
-            return []
-        tap = tap_hole(ss.thread, self._mat_class(), self._series_for(ss.thread))
-        r_d = tap.drill.diameter_mm / 2
-        face = self.faces[0] if ss.face == "top" else self.faces[1]
-        holes = []
-        for sock in sockets:
-            depth = sock.depth_mm if self.cfg.spreaders.socket_depth != "to-bore" else \
-                (self.body.outer_radius_mm - self.Rb) / math.cos(math.radians(self.cfg.spreaders.elevation))
-            if ss.per_spreader == 1:
-                positions = [ss.position if ss.position is not None else depth / 2]
-            else:
-                first = ss.position if ss.position is not None else depth / 3
-                positions = [first, first + (depth - first) / 2]
-                if positions[1] - positions[0] < 2 * r_d + L.MIN_WEB_MM:
-                    raise UserError("set_screws.position", f"the two set screws of each socket would be"
-                                    f" {self.fmt(positions[1] - positions[0])} apart, closer than their"
-                                    f" {self.fmt(2 * r_d)} pilots allow",
-                                    "a position nearer the outer face, a smaller thread or per_spreader = 1")
-            for j, p in enumerate(positions):
-                hid = f"T{sock.spreader}" + ("" if ss.per_spreader == 1 else "ab"[j])
-                if not (r_d < p < depth - r_d):
-                    raise UserError("set_screws.position", f"{self.fmt(p)} is not along the socket",
-                                    f"more than {self.fmt(r_d)} and less than {self.fmt(depth - r_d)} from the outer face")
-                P = sock.point_at(p)
-                if ss.face == "top":
-                    entry, axis, d = (P[0], P[1], self.T), (0.0, 0.0, -1.0), self.T - P[2]
-                else:
-                    entry, axis, d = (P[0], P[1], 0.0), (0.0, 0.0, 1.0), P[2]
-                self._edge_check("set_screws.position", face, face.to_face(entry), r_d, f"set screw {hid}")
-                rho = math.hypot(P[0], P[1])
-                if rho - r_d < self.Rb + L.MIN_WEB_MM:
-                    raise UserError("set_screws.position", f"set screw {hid} would break into the bore",
-                                    "a position nearer the outer face")
-                self._clear_of_sockets("set_screws.thread", entry, axis, d, r_d, sockets, skip=sock.id,
-                                       what=f"set screw {hid}")
-                holes.append(Hole(id=hid, kind="set_screw", face=ss.face, entry_mm=entry, axis=axis,
-                                  diameter_mm=tap.drill.diameter_mm, depth_mm=d, drill=tap.drill.name,
-                                  thread=ss.thread.designation, thread_percent=tap.thread_percent,
-                                  spreader=sock.spreader, lead_mm=L.CUT_OVERRUN_MM,
-                                  note=f"set screw for spreader {sock.spreader}"))
-        return holes
-
-    def _clear_of_sockets(self, key, entry, axis, depth, radius, sockets, skip=None, what="hole"):
-        end = (entry[0] + axis[0] * depth, entry[1] + axis[1] * depth, entry[2] + axis[2] * depth)
-        for s in sockets:
-            if s.id == skip:
-                continue
-            gap = segment_distance(entry, end, s.entry_mm, s.bottom_mm) - radius - s.radius_mm
-            if gap < L.MIN_WEB_MM:
-                raise UserError(key, f"{what} would break into socket {s.id}"
-                                f" (web {self.fmt(max(gap, 0))})",
-                                f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
-
-    def _clamps(self, sockets: list[Hole]) -> list[Hole]:
-        mc = self.cfg.mast_clamp
-        if mc is None:
-            return []
-        if mc.count > self.N:
-            raise UserError("mast_clamp.count", f"{mc.count} clamp holes but only {self.N} gaps between sockets",
-                            f"1 to {self.N}")
-        tap = tap_hole(mc.thread, self._mat_class(), self._series_for(mc.thread))
-        r_c = tap.drill.diameter_mm / 2
-        gaps = [round(k * self.N / mc.count) for k in range(mc.count)]
-        first = self.cfg.spreaders.first_azimuth
-        holes = []
-        for k, g in enumerate(gaps):
-            az = first + (g + 0.5) * 360 / self.N
-            if self.body.style == "puck":
-                r_e, face_id = self.body.outer_radius_mm, "rim"
-                lead = L.CUT_OVERRUN_MM + r_e - math.sqrt(r_e ** 2 - r_c ** 2)
-            else:
-                face = self._face_at(az)
-                if face is None:
-                    need = self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)
-                    raise UserError("mast_clamp", "clamp holes sit between sockets, where this block has a"
-                                    " sharp corner", f"hub.sides = {2 * self.N} (a flat between sockets) or"
-                                    f" hub.corner_chamfer of at least {need}")
-                half_w = face.outline[1][0]
-                if half_w - r_c < L.MIN_EDGE_MM:
-                    raise UserError("hub.corner_chamfer" if face.kind == "chamfer" else "hub.across_flats",
-                                    f"the {face.id} face ({self.fmt(2 * half_w)} wide) is too narrow to"
-                                    f" drill the {tap.drill.name} clamp hole",
-                                    f"at least {self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)}")
-                r_e, face_id = math.hypot(face.origin[0], face.origin[1]), face.id
-                lead = L.CUT_OVERRUN_MM
-            t = math.radians(az)
-            entry = (r_e * math.cos(t), r_e * math.sin(t), self.T / 2)
-            axis = (-math.cos(t), -math.sin(t), 0.0)
-            depth = r_e - self.Rb
-            extend = self.Rb - (math.sqrt(self.Rb ** 2 - r_c ** 2) - 0.2)
-            hid = f"C{k + 1}"
-            self._clear_of_sockets("mast_clamp", entry, axis, depth, r_c, sockets, what=f"clamp hole {hid}")
-            holes.append(Hole(id=hid, kind="clamp", face=face_id, entry_mm=entry, axis=axis,
-                              diameter_mm=tap.drill.diameter_mm, depth_mm=depth, drill=tap.drill.name,
-                              thread=mc.thread.designation, thread_percent=tap.thread_percent,
-                              extend_mm=extend, lead_mm=lead, note="mast clamp screw"))
-        return holes
-
-    def _face_at(self, az: float) -> Face | None:
-        for f in self.faces:
-            if f.kind in ("flat", "chamfer") and abs(((f.azimuth_deg - az + 180) % 360) - 180) < 1e-6:
-                return f
-        return None
-
-    def _extras(self, existing: list[Hole], sockets: list[Hole]) -> list[Hole]:
-        from generators.standards.fasteners import clearance_hole, counterbore, countersink
-
-        taken = {h.id for h in existing}
-        out: list[Hole] = []
-        for i, spec in enumerate(self.cfg.holes):
-            key = f"holes[{i}]"
-            if spec.id in taken:
-                raise UserError(f"{key}.id", f"{spec.id!r} is already used by a generated hole",
-                                "ids other than " + ", ".join(sorted(taken)))
-            taken.add(spec.id)
-            cs = cb = None
-            if spec.thread is not None:
-                tap = tap_hole(spec.thread, self._mat_class(), self._series_for(spec.thread))
-                dia, drill, thread, pct = tap.drill.diameter_mm, tap.drill.name, spec.thread.designation, tap.thread_percent
-            elif spec.clearance is not None:
-                target = clearance_hole(spec.clearance, spec.fit, key=f"{key}.fit")
-                drill, dia = clearance_drill(target, self._series_for(spec.clearance))
-                thread, pct = None, None
-                if spec.countersink:
-                    c = countersink(spec.clearance)
-                    cs = Countersink(diameter_mm=c.head_diameter_mm, angle_deg=c.angle_deg)
-                if spec.counterbore:
-                    c = counterbore(spec.clearance)
-                    cb = Counterbore(diameter_mm=c.diameter_mm, depth_mm=c.depth_mm)
-            else:
-                dia = spec.diameter
-                drill = drill_name_for(dia, self._series_for(None))
-                thread, pct = None, None
-            if spec.through is False and spec.depth is None:
-                raise UserError(f"{key}.through", "through = false needs the blind hole's depth",
-                                f"give {key}.depth, or leave through out for a through hole")
-            through = spec.depth is None
-            depth = self.T if through else spec.depth
-            if not through and depth > self.T - L.MIN_WEB_MM + 1e-9:
-                raise UserError(f"{key}.depth", f"{self.fmt(depth)} leaves {self.fmt(max(self.T - depth, 0))} under"
-                                f" the hole", f"up to {self.fmt(self.T - L.MIN_WEB_MM)}, or no depth for a through hole")
-            if cb is not None and not through and cb.depth_mm >= depth - 1e-9:
-                raise UserError(f"{key}.counterbore", f"a {self.fmt(cb.depth_mm)} counterbore in a {self.fmt(depth)}"
-                                " deep hole", f"a hole deeper than {self.fmt(cb.depth_mm)}, or no counterbore")
-            if spec.face == "top":
-                entry, axis, face = (spec.at[0], spec.at[1], self.T), (0.0, 0.0, -1.0), self.faces[0]
-            else:
-                entry, axis, face = (spec.at[0], spec.at[1], 0.0), (0.0, 0.0, 1.0), self.faces[1]
-            r_out = max(dia, cs.diameter_mm if cs else 0, cb.diameter_mm if cb else 0) / 2
-            self._edge_check(f"{key}.at", face, face.to_face(entry), r_out, f"hole {spec.id}")
-            if math.hypot(*spec.at) - r_out < self.Rb + L.MIN_WEB_MM:
-                raise UserError(f"{key}.at", f"hole {spec.id} would break into the bore",
-                                f"at least {self.fmt(self.Rb + L.MIN_WEB_MM + r_out)} from the mast axis")
-            self._clear_of_sockets(f"{key}.at", entry, axis, depth, dia / 2, sockets, what=f"hole {spec.id}")
-            end = (entry[0] + axis[0] * depth, entry[1] + axis[1] * depth, entry[2] + axis[2] * depth)
-            for other in existing + out:
-                if other.kind in ("bore", "socket"):
-                    continue
-                gap = segment_distance(entry, end, other.entry_mm, other.bottom_mm) - r_out - other.radius_mm
-                if gap < L.MIN_WEB_MM:
-                    raise UserError(f"{key}.at", f"hole {spec.id} runs into hole {other.id}",
-                                    f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
-            out.append(Hole(id=spec.id, kind="extra", face=spec.face, entry_mm=entry, axis=axis,
-                            diameter_mm=dia, depth_mm=depth, through=through, drill=drill, thread=thread,
-                            thread_percent=pct, countersink=cs, counterbore=cb,
-                            extend_mm=L.CUT_OVERRUN_MM if through else 0.0, lead_mm=L.CUT_OVERRUN_MM))
-        return out
