@@ -39,6 +39,7 @@ class BuildContext:
     summary: list[str] = field(default_factory=list)
     changes: dict[str, Any] = field(default_factory=dict)  # against the build this one replaces
     volume_mm3: float | None = None
+    solid_wall: dict | None = None  # the least wall measured on the cut solid (cad/walls.py)
 
     @property
     def config(self) -> Config:
@@ -135,6 +136,7 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
             ctx.summary.extend(check_summary(checks))
             run_writers(WRITERS, ctx)
             record = plan_record(d.plan, ctx.volume_mm3)
+            _add_walls(record, d, ctx.solid_wall)
             _add_tap_depths(record, d)
             record.update(ctx.manifest)
             manifest = write_manifest(tmp, record)
@@ -143,6 +145,20 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
         saved = save_failed_config(cfg, target, config_path)
         raise KernelError(exc.key, exc.problem, f"a bug: please report it with {saved}") from None
     return BuildResult(name=cfg.name, folder=target, manifest=manifest, summary=ctx.summary)
+
+
+def _add_walls(record: dict[str, Any], d: Design, solid: dict | None) -> None:
+    """``hub.min_wall_mm`` as measured on the solid, with the features it lies between, and
+    the plan's own figure (``hub.plan_min_wall_mm``) beside it."""
+    least = d.walls[0] if d.walls else None
+    if least is not None:
+        record["hub"]["plan_min_wall_mm"] = round(least.mm, 3)
+        record["hub"]["plan_min_wall_between"] = [least.a, least.b]
+    if solid and solid["between"]:
+        record["hub"]["min_wall_mm"] = solid["min_wall_mm"]
+        record["hub"]["min_wall_between"] = solid["between"]
+        record["hub"]["min_wall_method"] = ("OCCT BRepExtrema distance between the faces of the cut"
+                                            " solid, each face assigned to its cut")
 
 
 def _add_tap_depths(record: dict[str, Any], d: Design) -> None:

@@ -24,6 +24,7 @@ class Design:
     jig_reason: str | None
     tip_cap: object | None  # TipCapPlan
     checks: object  # rules.Checks
+    walls: tuple  # measured_walls.Wall, least first
     series: tuple[str, ...]
     material_class: str
     operations: tuple  # Operation, hub faces in plan order
@@ -49,6 +50,7 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
     from generators.plan.holes import material_class
     from generators.plan.hub import build_plan
     from generators.plan.jig import jig_plan, jig_reason
+    from generators.plan.measured_walls import measure_walls
     from generators.plan.operations import plan_operations
     from generators.plan.reducer import plan_sleeves
     from generators.plan.rules import evaluate
@@ -62,11 +64,12 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
     series = drill_series(cfg)
     mclass = material_class(cfg.hub.material)
     sleeve_plans = tuple((s, sleeve_as_plan(plan, s)) for s in sleeves)
-    checks = evaluate(cfg, plan, sleeves)
+    walls = tuple(measure_walls(plan))
+    checks = evaluate(cfg, plan, sleeves, walls)
     return Design(
         config=cfg, masts=masts, plan=plan, sleeves=sleeves, sleeve_plans=sleeve_plans,
         cut_cases=tuple(cut_list(cfg, plan, sleeves)), jig=jig_plan(plan, cfg), jig_reason=jig_reason(plan, cfg),
-        tip_cap=tip_cap_plan(cfg), checks=checks, series=series, material_class=mclass,
+        tip_cap=tip_cap_plan(cfg), checks=checks, walls=walls, series=series, material_class=mclass,
         operations=plan_operations(plan, cfg, series, mclass),
         sleeve_operations=tuple((s.stem, plan_operations(sp, cfg, series, mclass)) for s, sp in sleeve_plans),
     )

@@ -35,11 +35,23 @@ def write_step(solid: cq.Shape, path: Path) -> None:
     path.write_bytes(_STEP_PRODUCT.sub(b"PRODUCT('" + name + b"','" + name + b"'", data, count=1))
 
 
+def tessellate_mm(shape: cq.Shape, deflection_mm: float, angular_rad: float):
+    """Vertices and triangles of a shape meshed afresh with an absolute chordal deflection in
+    mm (cadquery's ``tessellate`` takes a deflection relative to each edge's size, and keeps
+    any finer mesh the shape already carries)."""
+    from OCP.BRepMesh import BRepMesh_IncrementalMesh
+    from OCP.BRepTools import BRepTools
+
+    BRepTools.Clean_s(shape.wrapped)
+    BRepMesh_IncrementalMesh(shape.wrapped, deflection_mm, False, angular_rad, False)
+    return shape.tessellate(deflection_mm, angular_rad)
+
+
 def mesh_of(solid: cq.Shape, tolerance: float, angular_deg: float, feature: str = "hub") -> trimesh.Trimesh:
     """A merged, watertight triangle mesh of the solid; refuses to return a leaky one."""
     import math
 
-    verts, tris = solid.tessellate(tolerance, math.radians(angular_deg))
+    verts, tris = tessellate_mm(solid, tolerance, math.radians(angular_deg))
     v = np.array([(p.x, p.y, p.z) for p in verts], dtype=np.float64)
     f = np.array(tris, dtype=np.int64)
     mesh = trimesh.Trimesh(vertices=v, faces=f, process=True, validate=True)
@@ -85,8 +97,9 @@ def _stable_uuids(xml: bytes, digest: str) -> bytes:
     return _UUID.sub(repl, xml)
 
 
-# STL and STEP volumes must agree within this fraction, or the mesh has lost material
-# (a seam or a missing face) and the part is refused.
+# STL and STEP volumes must agree within this fraction (or within the surface area times the
+# chordal deflection, when that is more), or the mesh has lost material (a seam or a missing
+# face) and the part is refused.
 VOLUME_AGREEMENT = 0.005
 
 
@@ -97,7 +110,10 @@ def write_solid_files(solid: cq.Shape, folder: Path, stem: str, tolerance: float
     write_step(solid, folder / f"{stem}.step")
     mesh = mesh_of(solid, tolerance, angular_deg, feature=stem)
     v_solid, v_mesh = float(solid.Volume()), float(mesh.volume)
-    if abs(v_mesh - v_solid) > VOLUME_AGREEMENT * v_solid:
+    # every point of the mesh lies within the deflection of the surface, so the volumes can
+    # differ by at most the surface area times the deflection
+    allowed = max(VOLUME_AGREEMENT * v_solid, float(solid.Area()) * tolerance)
+    if abs(v_mesh - v_solid) > allowed:
         raise KernelError(stem, f"the mesh volume ({v_mesh:.0f} mm3) disagrees with the solid"
                           f" ({v_solid:.0f} mm3)", "a bug: please report it with the saved config")
     write_stl(mesh, folder / f"{stem}.stl")

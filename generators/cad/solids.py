@@ -34,6 +34,9 @@ def hole_cutters(hole: Hole) -> list[cq.Solid]:
         cutters = [_teardrop(hole, start, axis, length)]
     else:
         cutters = [cq.Solid.makeCylinder(hole.radius_mm, length, start, axis)]
+    if hole.point_deg is not None:
+        tip = hole.radius_mm / math.tan(math.radians(hole.point_deg / 2))
+        cutters.append(cq.Solid.makeCone(hole.radius_mm, 0.0, tip, start + axis * length, axis))
     if hole.countersink is not None:
         cs = hole.countersink
         half = math.radians(cs.angle_deg / 2)

@@ -10,6 +10,11 @@ from generators.plan.geometry import segment_distance
 from generators.plan.holes import clearance_drill, drill_name_for, tap_hole
 from generators.plan.model import Counterbore, Countersink, Hole
 
+# A twist drill's point: 118 deg included angle, the general-purpose grind (ISO 5419 names
+# the point angle; 118 deg is the usual figure, from memory). A blind drilled hole ends in
+# this cone, so the wall under it is thinner than the flat depth says.
+DRILL_POINT_DEG = 118.0
+
 
 class ExtraHoles:
     def _extras(self, existing: list[Hole], sockets: list[Hole]) -> list[Hole]:
@@ -46,9 +51,13 @@ class ExtraHoles:
                                 f"give {key}.depth, or leave through out for a through hole")
             through = spec.depth is None
             depth = self.T if through else spec.depth
-            if not through and depth > self.T - L.MIN_WEB_MM + 1e-9:
-                raise UserError(f"{key}.depth", f"{self.fmt(depth)} leaves {self.fmt(max(self.T - depth, 0))} under"
-                                f" the hole", f"up to {self.fmt(self.T - L.MIN_WEB_MM)}, or no depth for a through hole")
+            point = None if through or self.cfg.hub.process == "printed" else DRILL_POINT_DEG
+            tip = 0.0 if point is None else dia / 2 / math.tan(math.radians(point / 2))
+            if not through and depth + tip > self.T - L.MIN_WEB_MM + 1e-9:
+                under = "under the hole" if point is None else "under the drill point"
+                raise UserError(f"{key}.depth", f"{self.fmt(depth)} leaves {self.fmt(max(self.T - depth - tip, 0))}"
+                                f" {under}", f"up to {self.fmt(max(self.T - L.MIN_WEB_MM - tip, 0))},"
+                                " or no depth for a through hole")
             if cb is not None and not through and cb.depth_mm >= depth - 1e-9:
                 raise UserError(f"{key}.counterbore", f"a {self.fmt(cb.depth_mm)} counterbore in a {self.fmt(depth)}"
                                 " deep hole", f"a hole deeper than {self.fmt(cb.depth_mm)}, or no counterbore")
@@ -73,5 +82,6 @@ class ExtraHoles:
             out.append(Hole(id=spec.id, kind="extra", face=spec.face, entry_mm=entry, axis=axis,
                             diameter_mm=dia, depth_mm=depth, through=through, drill=drill, thread=thread,
                             thread_percent=pct, countersink=cs, counterbore=cb,
-                            extend_mm=L.CUT_OVERRUN_MM if through else 0.0, lead_mm=L.CUT_OVERRUN_MM))
+                            extend_mm=L.CUT_OVERRUN_MM if through else 0.0, lead_mm=L.CUT_OVERRUN_MM,
+                            point_deg=point))
         return out

@@ -67,6 +67,8 @@ class Hole:
     nut: str | None = None
     insert: str | None = None
     compensation_mm: float = 0.0  # diametral, already included in diameter_mm
+    # A blind drilled hole ends in the drill's point cone of this included angle (None: flat).
+    point_deg: float | None = None
 
     @property
     def radius_mm(self) -> float:

@@ -20,7 +20,7 @@ from generators.plan.rules.wind import WindRules
 
 # The order the rules run and are shown in, group by group.
 GROUPS = (
-    ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore")),
+    ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore", "rule_hole_wall")),
     ("fasteners", ("rule_thread_engagement", "rule_set_screw_length")),
     ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt")),
     ("sleeves", ("rule_sleeve_wall",)),
@@ -48,11 +48,15 @@ class Checks:
         return {"rules": [r.as_json() for r in self.rules], "wind": self.wind.as_json()}
 
 
-def evaluate(cfg: Config, plan: HubPlan, sleeves: tuple = ()) -> Checks:
-    """Every rule and the wind estimate for a plan (``sleeves``: its sleeve plans)."""
+def evaluate(cfg: Config, plan: HubPlan, sleeves: tuple = (), walls: tuple | None = None) -> Checks:
+    """Every rule and the wind estimate for a plan (``sleeves``: its sleeve plans; ``walls``:
+    its measured walls, measured here when not given)."""
     from generators.plan.loads import wind_estimate
 
-    r = _Rules(cfg, plan, sleeves)
+    from generators.plan.hard_limits import check_hard_limits
+
+    r = _Rules(cfg, plan, sleeves, walls)
+    check_hard_limits(cfg, plan, r.walls)
     results = [getattr(r, name)() for name in RULES]
     wind = wind_estimate(cfg, plan, r.engaged_set_screw_mm())
     results += r.wind_rules(wind)

@@ -90,10 +90,13 @@ def _grade(value: float, fail_below: float, warn_below: float) -> tuple[str, flo
 class RulesBase:
     """What every rule group shares: the config, the plan, the material and small helpers."""
 
-    def __init__(self, cfg: Config, plan: HubPlan, sleeves: tuple = ()):
+    def __init__(self, cfg: Config, plan: HubPlan, sleeves: tuple = (), walls: tuple | None = None):
+        from generators.plan.measured_walls import REFINE_BELOW_MM, measure_walls
         from generators.standards.materials import get_material
 
         self.cfg, self.plan, self.sleeve_plans = cfg, plan, tuple(sleeves)
+        self.walls = tuple(measure_walls(plan) if walls is None else walls)
+        self.far = REFINE_BELOW_MM
         self.mat = get_material(plan.material)
         self.cls = self.mat.material_class
         self.min_wall = MIN_WALL_MM[self.cls]

@@ -4,7 +4,6 @@ from __future__ import annotations
 
 import math
 
-from generators.plan.geometry import edge_distance
 from generators.plan.model import Hole, HubPlan
 from generators.plan.rules.base import (  # noqa: F401
     COMMON, DEPTH_MIN_D, DEPTH_RECOMMENDED_D, EDGE_MIN_D, EDGE_RECOMMENDED_D, ENGAGE_MIN_D, FAIL,
@@ -15,20 +14,17 @@ from generators.plan.rules.base import (  # noqa: F401
 
 class PlacementRules(RulesBase):
     def hole_edge(self, h: Hole) -> float | None:
-        """Rim of the hole to the nearest edge of its face (sockets: sideways only; their
-        top and bottom are the socket-wall rule's)."""
-        if h.kind == "bore" or h.kind in POCKETS:
+        """Rim of the hole to the nearest free edge of the face it is drilled into
+        (``plan/edges.py``: the crease of an obtuse corner is no free edge). Sockets are the
+        socket-wall rule's; the material a hole leaves to every face is the hole-wall rule's."""
+        from generators.plan.edges import free_edge_distance
+
+        if h.kind in ("bore", "socket") or h.kind in POCKETS:
             return None  # the bore has its own wall limit; pockets open onto a face by design
         face = self.plan.face(h.face)
-        u, v = face.to_face(h.entry_mm)
         r = max(h.radius_mm, (h.countersink.diameter_mm / 2) if h.countersink else 0.0,
                 (h.counterbore.diameter_mm / 2) if h.counterbore else 0.0)
-        if face.kind == "rim":
-            return None if h.kind == "socket" else min(v, self.T - v) - r
-        if h.kind == "socket":
-            us = [p[0] for p in face.outline]
-            return min(u - min(us), max(us) - u) - r
-        return edge_distance((u, v), face.outline) - r
+        return free_edge_distance(self.plan, face, face.to_face(h.entry_mm)) - r
 
     def rule_edge_distance(self) -> RuleResult:
         worst = None
@@ -43,12 +39,13 @@ class PlacementRules(RulesBase):
             return self._na("edge-distance", "x D", "no holes but the bore")
         h, d, ratio = worst
         status, limit = _grade(ratio, EDGE_MIN_D, EDGE_RECOMMENDED_D)
-        msg = f"{h.id}: rim {self.fmt(d)} from the edge of the {h.face} face = {ratio:.2f} x its diameter"
+        msg = f"{h.id}: rim {self.fmt(d)} from the nearest free edge of the {h.face} face = {ratio:.2f} x its diameter"
         if status != PASS:
             msg += (f"; want {EDGE_RECOMMENDED_D:g} x D = {self.fmt(EDGE_RECOMMENDED_D * h.diameter_mm)}:"
                     " move the hole inward or use a larger hub")
         return RuleResult("edge-distance", status, ratio, limit, "x D", msg,
-                          f"{COMMON}: rim at least {EDGE_MIN_D:g} x D from an edge, recommended"
+                          f"{COMMON}: rim at least {EDGE_MIN_D:g} x D from a free edge (faces meeting at"
+                          f" under 150 deg), recommended"
                           f" {EDGE_RECOMMENDED_D:g} x D")
 
     def rule_socket_depth(self) -> RuleResult:

@@ -1,0 +1,178 @@
+"""Every cut of a hub as its true shape, for measuring walls without a CAD kernel.
+
+A round hole is a solid of revolution: its half-section in (radius, depth along the axis)
+holds the countersink cone, the counterbore step and a drill-point bottom. A teardrop or a
+hex nut slot is a prism of its true section. Each cutter gives the signed distance of
+points to it (negative inside) and sample points on its surface; the cad layer cuts the
+same shapes. Plain numpy.
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from generators.plan.model import Hole
+from generators.plan.print_profiles import _basis, hex_slot_outline, teardrop_outline
+from generators.plan.geometry import cross, unit
+
+# Segments of a teardrop's 270 deg arc when sampling its surface (the samples lie inside the
+# true arc by at most r(1 - cos(2.8 deg)), 0.12 % of the radius; distances to it are exact).
+ARC_POINTS = 48
+
+
+def point_depth_mm(hole: Hole) -> float:
+    """How far a drill-point cone runs past the flat depth (0 for a flat bottom)."""
+    if hole.point_deg is None:
+        return 0.0
+    return hole.radius_mm / math.tan(math.radians(hole.point_deg / 2))
+
+
+class Cutter:
+    """The material one hole removes."""
+
+    def __init__(self, hole: Hole):
+        self.hole = hole
+        self.E = np.array(hole.entry_mm, dtype=float)
+        self.a = np.array(unit(hole.axis), dtype=float)
+        self.roof = None
+        t0, t1 = -hole.lead_mm, hole.depth_mm + hole.extend_mm
+        if hole.profile == "hex":
+            x = unit(hole.slot_dir)
+            self.x, self.y = np.array(x), np.array(cross(unit(hole.axis), x))
+            self.section, self.t0, self.t1, self.revolved = np.array(hex_slot_outline(hole)), 0.0, hole.depth_mm, False
+        elif hole.profile == "teardrop":
+            y = unit(hole.roof_up)
+            self.x, self.y = np.array(cross(y, unit(hole.axis))), np.array(y)
+            self.section = np.array(teardrop_outline(hole.radius_mm, hole.roof_mm, ARC_POINTS))
+            self.t0, self.t1, self.revolved = t0, t1, False
+            # distances: the round hole and its roof (the tangent points, the apex or the
+            # flat top, and the centre), whose union is the teardrop
+            roof = self.section[ARC_POINTS:]
+            self.roof = np.concatenate([roof, self.section[:1], np.zeros((1, 2))])
+        else:
+            x, y = _basis(hole.axis)
+            self.x, self.y = np.array(x), np.array(y)
+            self.half = np.array(_half_section(hole, t0, t1))
+            # the closed section mirrored about the axis, for exact distances on both sides
+            self.section = np.concatenate([self.half, self.half[::-1] * np.array([-1.0, 1.0])])
+            self.t0, self.t1, self.revolved = t0, self.half[:, 1].max(), True
+            self.plain = len(self.half) == 4 and hole.point_deg is None  # a plain cylinder: closed form
+
+    def _local(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+        d = pts - self.E
+        return d @ self.a, np.stack([d @ self.x, d @ self.y], axis=1)
+
+    def sdf(self, pts: np.ndarray) -> np.ndarray:
+        """Signed distance of points (N, 3) to the cut (negative inside)."""
+        t, q = self._local(pts)
+        if self.revolved and not self.plain:
+            return poly_sdf(np.stack([np.hypot(q[:, 0], q[:, 1]), t], axis=1), self.section)
+        if self.revolved:
+            d2 = np.hypot(q[:, 0], q[:, 1]) - self.hole.radius_mm
+        elif self.roof is not None:
+            d2 = np.minimum(np.hypot(q[:, 0], q[:, 1]) - self.hole.radius_mm, poly_sdf(q, self.roof))
+        else:
+            d2 = poly_sdf(q, self.section)
+        dt = np.maximum(self.t0 - t, t - self.t1)
+        out = np.hypot(np.maximum(d2, 0), np.maximum(dt, 0))
+        return np.where((d2 <= 0) & (dt <= 0), np.maximum(d2, dt), out)
+
+    def surface(self, step: float, near: tuple | None = None) -> np.ndarray:
+        """Points on the cutter's surface, about ``step`` apart; with ``near = (point, r)``
+        only those within ``r`` of the point."""
+        tp, qp, r = -np.inf, None, np.inf
+        if near is not None:
+            t_, q_ = self._local(np.asarray(near[0], dtype=float)[None])
+            tp, qp, r = float(t_[0]), q_[0], float(near[1])
+        pts = []
+        if self.revolved:
+            phi_p = math.atan2(qp[1], qp[0]) if qp is not None else 0.0
+            for rho, t in _walk(self.half, step, closed=False):
+                if near is not None and abs(t - tp) > r:
+                    continue
+                n = max(6, int(math.ceil(2 * math.pi * rho / step))) if rho > 1e-9 else 1
+                ang = np.arange(n) * (2 * math.pi / n)
+                if near is not None and rho > r:
+                    dphi = (ang - phi_p + math.pi) % (2 * math.pi) - math.pi
+                    ang = ang[np.abs(dphi) <= 2 * math.asin(min(1.0, r / (2 * rho))) + 2 * math.pi / n]
+                pts.append(self.E + self.a * t + np.outer(rho * np.cos(ang), self.x) + np.outer(rho * np.sin(ang), self.y))
+        else:
+            ring = np.array(list(_walk(self.section, step, closed=True)))
+            levels = np.linspace(self.t0, self.t1, max(2, int(math.ceil((self.t1 - self.t0) / step)) + 1))
+            if near is not None:
+                ring = ring[np.hypot(*(ring - qp).T) <= r]
+                levels = levels[np.abs(levels - tp) <= r]
+            pts += [self.E + self.a * t + np.outer(ring[:, 0], self.x) + np.outer(ring[:, 1], self.y) for t in levels]
+            lo, hi = self.section.min(axis=0), self.section.max(axis=0)
+            if near is not None:
+                lo, hi = np.maximum(lo, qp - r), np.minimum(hi, qp + r)
+            gx, gy = np.meshgrid(np.arange(lo[0], hi[0] + step, step), np.arange(lo[1], hi[1] + step, step))
+            grid = np.stack([gx.ravel(), gy.ravel()], axis=1)
+            grid = grid[poly_sdf(grid, self.section) <= 0] if len(grid) else grid
+            for t in (self.t0, self.t1):
+                if abs(t - tp) <= r or near is None:
+                    pts.append(self.E + self.a * t + np.outer(grid[:, 0], self.x) + np.outer(grid[:, 1], self.y))
+        pts = [p for p in pts if len(p)]
+        out = np.concatenate(pts) if pts else np.empty((0, 3))
+        if near is not None and len(out):
+            out = out[np.linalg.norm(out - np.asarray(near[0]), axis=1) <= r]
+        return out
+
+    def bounds(self) -> tuple[np.ndarray, np.ndarray]:
+        """An axis-aligned box holding the cutter."""
+        ends = np.array([self.E + self.a * self.t0, self.E + self.a * self.t1])
+        reach = float(np.hypot(*np.abs(self.section).max(axis=0)))
+        return ends.min(axis=0) - reach, ends.max(axis=0) + reach
+
+
+def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
+    """(radius, depth) from the axis at the start, out, down the side and back to the axis."""
+    r = h.radius_mm
+    pts = [(0.0, t0)]
+    if h.countersink is not None:
+        half = math.radians(h.countersink.angle_deg / 2)
+        R = h.countersink.diameter_mm / 2
+        pts += [(R + h.lead_mm * math.tan(half), t0), (r, (R - r) / math.tan(half))]
+    elif h.counterbore is not None:
+        R, d = h.counterbore.diameter_mm / 2, h.counterbore.depth_mm
+        pts += [(R, t0), (R, d), (r, d)]
+    else:
+        pts.append((r, t0))
+    pts.append((r, t1))
+    pts.append((0.0, t1 + point_depth_mm(h)))
+    return pts
+
+
+def poly_sdf(q: np.ndarray, poly: np.ndarray, chunk: int = 4096) -> np.ndarray:
+    """Signed distance of 2D points to a simple polygon (negative inside), all edges at once."""
+    a = poly
+    ab = np.roll(poly, -1, axis=0) - a
+    L2 = np.where((ab * ab).sum(axis=1) > 0, (ab * ab).sum(axis=1), 1.0)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        slope = np.where(ab[:, 1] == 0, 0.0, ab[:, 0] / np.where(ab[:, 1] == 0, 1.0, ab[:, 1]))
+    out = np.empty(len(q))
+    for lo in range(0, len(q), chunk):
+        p = q[lo:lo + chunk]
+        ap = p[:, None, :] - a[None, :, :]
+        t = np.clip((ap * ab[None]).sum(axis=2) / L2[None], 0.0, 1.0)
+        d = np.hypot(ap[..., 0] - t * ab[None, :, 0], ap[..., 1] - t * ab[None, :, 1]).min(axis=1)
+        y1, y2 = a[None, :, 1], a[None, :, 1] + ab[None, :, 1]
+        cross_ = (y1 > p[:, None, 1]) != (y2 > p[:, None, 1])
+        xc = a[None, :, 0] + (p[:, None, 1] - y1) * slope[None]
+        inside = (np.count_nonzero(cross_ & (p[:, None, 0] < xc), axis=1) % 2) == 1
+        out[lo:lo + chunk] = np.where(inside, -d, d)
+    return out
+
+
+def _walk(poly: np.ndarray, step: float, closed: bool):
+    """Points along a polyline about ``step`` apart, every vertex included."""
+    n = len(poly) if closed else len(poly) - 1
+    for i in range(n):
+        p, q = poly[i], poly[(i + 1) % len(poly)]
+        k = max(1, int(math.ceil(float(np.hypot(*(q - p))) / step)))
+        for j in range(k):
+            yield p + (q - p) * (j / k)
+    if not closed:
+        yield poly[-1]
