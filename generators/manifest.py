@@ -40,6 +40,7 @@ def hole_record(h: Hole) -> dict[str, Any]:
         {"diameter_mm": _r(h.counterbore.diameter_mm), "depth_mm": _r(h.counterbore.depth_mm)},
         "spreader": h.spreader,
         "note": h.note,
+        **({"point_deg": h.point_deg} if h.point_deg is not None else {}),
         **_print_fields(h),
     }
 

@@ -140,6 +140,7 @@ class SetScrews(Section):
 class MastClamp(Section):
     thread: ThreadSpec
     count: Annotated[int, Field(ge=1, le=12)] = 1
+    height: Annotated[Length, Field(ge=0)] | None = None  # clamp axis above the bottom face; default mid-thickness
 
 
 class ExtraHole(Section):

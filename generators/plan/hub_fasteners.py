@@ -81,6 +81,11 @@ class FastenerHoles:
                             f"1 to {self.N}")
         tap = tap_hole(mc.thread, self._mat_class(), self._series_for(mc.thread))
         r_c = tap.drill.diameter_mm / 2
+        z = self.T / 2 if mc.height is None else mc.height
+        if not (r_c + L.MIN_EDGE_MM <= z <= self.T - r_c - L.MIN_EDGE_MM):
+            raise UserError("mast_clamp.height", f"{self.fmt(z)} puts the {tap.drill.name} clamp hole"
+                            " through the top or bottom face", f"{self.fmt(r_c + L.MIN_EDGE_MM)} to"
+                            f" {self.fmt(self.T - r_c - L.MIN_EDGE_MM)} above the bottom face")
         gaps = [round(k * self.N / mc.count) for k in range(mc.count)]
         first = self.cfg.spreaders.first_azimuth
         holes = []
@@ -105,7 +110,7 @@ class FastenerHoles:
                 r_e, face_id = math.hypot(face.origin[0], face.origin[1]), face.id
                 lead = L.CUT_OVERRUN_MM
             t = math.radians(az)
-            entry = (r_e * math.cos(t), r_e * math.sin(t), self.T / 2)
+            entry = (r_e * math.cos(t), r_e * math.sin(t), z)
             axis = (-math.cos(t), -math.sin(t), 0.0)
             depth = r_e - self.Rb
             extend = self.Rb - (math.sqrt(self.Rb ** 2 - r_c ** 2) - 0.2)

@@ -43,7 +43,7 @@ def test_thin_wall_fails_with_a_suggestion():
     _, _, checks = checks_for(modified(hub={"thickness": 24}, spreaders={"elevation": 0}))
     r = rule(checks, "socket-wall")
     assert r.status == "fail"
-    assert r.value == pytest.approx((24 - 20.5) / 2, abs=1e-6)
+    assert r.value == pytest.approx((24 - 20.5) / 2, abs=0.01)  # sampled on the true shapes, to 0.01 mm
     assert "hub.thickness" in r.message
 
 
@@ -108,8 +108,10 @@ def test_edge_distance_warns_then_fails():
     # crafted plan (bypassing the planner's refusal): moved to 0.6 mm from the edge
     holes = tuple(dataclasses.replace(h, entry_mm=(0.0, 87.0, h.entry_mm[2])) if h.id == "TIE" else h
                   for h in plan.holes)
-    bad = evaluate(cfg, dataclasses.replace(plan, holes=holes))
-    assert rule(bad, "edge-distance").status == "fail"
+    # under the half-diameter hard limit a design is refused (exit 2), --force or not
+    with pytest.raises(UserError) as err:
+        evaluate(cfg, dataclasses.replace(plan, holes=holes))
+    assert err.value.key == "holes[0].at" and "TIE" in err.value.problem
 
 
 @pytest.mark.parametrize("depth, status", [(25, "warn"), (18, "fail")])
@@ -136,8 +138,11 @@ def test_socket_tilt():
 def test_tilted_socket_breaking_out_of_a_crafted_body():
     cfg, plan, _ = checks_for(demo(METRIC_CASE))
     thin = dataclasses.replace(plan, body=dataclasses.replace(plan.body, thickness_mm=30.0))
-    assert rule(evaluate(cfg, thin), "socket-tilt").status == "fail"
-    assert rule(evaluate(cfg, thin), "socket-wall").status == "fail"
+    faces = tuple(dataclasses.replace(f, origin=(0.0, 0.0, 30.0)) if f.id == "top" else f for f in thin.faces)
+    # the sockets break out of the thinner body: a hard limit, refused whatever --force says
+    with pytest.raises(UserError) as err:
+        evaluate(cfg, dataclasses.replace(thin, faces=faces))
+    assert err.value.key in ("hub.thickness", "spreaders.elevation") and "socket" in err.value.problem
 
 
 def test_reducer_sleeve_wall():

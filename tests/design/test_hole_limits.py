@@ -4,6 +4,8 @@ common practice)."""
 
 from __future__ import annotations
 
+import math
+
 import pytest
 
 from generators.config.load import parse_config
@@ -31,15 +33,29 @@ def test_blind_hole_deeper_than_the_floor_allows_is_refused():
     data, T = _with_hole(depth=None)
     data["holes"][0]["depth"] = T - 0.1
     err = _refusal(data)
-    assert err.key == "holes[0].depth" and "under the hole" in err.problem
+    assert err.key == "holes[0].depth" and "under the" in err.problem
 
 
 def test_blind_hole_with_its_floor_builds():
     data, T = _with_hole()
-    data["holes"][0]["depth"] = T - MIN_WEB_MM - 0.5
+    d0 = design(parse_config(data))
+    r = d0.plan.hole("X1").radius_mm
+    tip = r / math.tan(math.radians(59.0))  # a 118 deg drill point (ISO 5419 geometry, from memory)
+    data["holes"][0]["depth"] = T - MIN_WEB_MM - tip - 0.5
     d = design(parse_config(data))
     h = d.plan.hole("X1")
-    assert not h.through and d.plan.body.thickness_mm - h.depth_mm >= MIN_WEB_MM
+    assert not h.through and h.point_deg == 118.0
+    assert d.plan.body.thickness_mm - h.depth_mm - tip >= MIN_WEB_MM
+    floor = next(w for w in d.walls if w.a == "X1" and w.b == "face:bottom")
+    assert floor.mm == pytest.approx(T - h.depth_mm - tip, abs=0.02)  # measured under the point
+
+
+def test_blind_hole_point_deeper_than_the_floor_allows_is_refused():
+    # flat depth leaves 1.6 mm, but the drill point runs deeper than the 1.5 mm floor allows
+    data, T = _with_hole()
+    data["holes"][0]["depth"] = T - 1.6
+    err = _refusal(data)
+    assert err.key == "holes[0].depth" and "drill point" in err.problem
 
 
 def test_through_false_without_a_depth_is_refused():

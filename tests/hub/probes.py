@@ -49,12 +49,15 @@ class HoleModel:
     through: bool
     cs: dict | None
     cb: dict | None
+    tip: float = 0.0  # a blind drilled hole's point cone runs this far past depth on the axis
 
     @classmethod
     def from_manifest(cls, rec: dict) -> "HoleModel":
         return cls(rec["id"], rec["kind"], rec["face"], np.array(rec["entry_mm"], dtype=float),
                    unit(rec["axis"]), rec["diameter_mm"] / 2, rec["depth_mm"], rec["through"],
-                   rec["countersink"], rec["counterbore"])
+                   rec["countersink"], rec["counterbore"],
+                   # cone of included angle point_deg on radius r: r / tan(angle / 2) (geometry)
+                   rec["diameter_mm"] / 2 / math.tan(math.radians(rec["point_deg"] / 2)) if rec.get("point_deg") else 0.0)
 
     def at(self, t: float) -> np.ndarray:
         return self.entry + self.axis * t
@@ -83,7 +86,7 @@ class HoleModel:
         cutter overruns into the bore or a socket never make a probe ambiguous.
         """
         a = self.at(-1.0)
-        b = self.at(self.depth + self.r + 1.0)
+        b = self.at(self.depth + max(self.r, self.tip) + 1.0)
         return segment_distance(p, a, b) - self.outer_r
 
     def face_normal(self) -> np.ndarray:

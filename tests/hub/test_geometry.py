@@ -114,7 +114,9 @@ def test_hole_bottoms_are_where_the_manifest_says(probe):
             probe.expect(h.at(h.depth - 0.2), False, f"{h.id} just before its exit")
         elif h.kind == "extra" or (h.kind == "socket" and blind_sockets):
             probe.expect(h.at(h.depth - 0.2), False, f"{h.id} just before its bottom")
-            after = h.at(h.depth + 0.2)
+            if h.tip:  # the drill point: void on the axis half way down the cone
+                probe.expect(h.at(h.depth + h.tip / 2), False, f"{h.id} inside its drill point")
+            after = h.at(h.depth + h.tip + 0.2)
             clear = o.body.depth_inside(after) >= 0.2 and all(
                 x.keep_out(after) >= 0.2 for x in o.holes if x.id != h.id)
             assert clear, f"{h.id}: the point past its bottom is not clear of other holes"

@@ -69,7 +69,8 @@ QUAD_PUCK_10_INCH = {
     "name": "quad-puck-10", "units": "in",
     "mast": {"size": "1 in EMT"},
     "hub": {"style": "puck", "diameter": 5.0, "thickness": 1.75, "material": "hdpe"},
-    "spreaders": {"count": 4, "diameter": 0.625, "elevation": "10 deg", "first_azimuth": 45},
+    "spreaders": {"count": 4, "diameter": 0.625, "elevation": "10 deg", "first_azimuth": 45,
+                  "socket_depth": 1.2},  # blind: the clamp screw passes between the socket floors
     "set_screws": {"thread": "1/4-20", "per_spreader": 1, "face": "top", "position": 0.6},
     "mast_clamp": {"thread": "1/4-20", "count": 1},
     "holes": [{"id": "P1", "face": "top", "at": [0.0, 1.7], "diameter": 0.25, "depth": 0.5}],
