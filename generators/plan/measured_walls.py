@@ -3,7 +3,8 @@
 Every cut is a ``Cutter`` (``plan/cutters.py``: teardrop roofs, hex slots, countersink
 cones, counterbore steps, drill points). The wall between two cuts is the least distance
 from the exposed surface of one (inside the body, outside every other cut) to the other,
-sampled on both and taken both ways; the wall to a face of the body is the least distance
+sampled on both and taken both ways (to the true shape of the other where its nearest point
+is a surface of the part, else to its exposed samples); the wall to a face of the body is the least distance
 of a cut's exposed surface to that face (to the face itself, not its plane: past an obtuse
 corner the neighbouring face continues the material). Cuts that meet by design (a set screw into its socket, a socket or clamp
 hole into the bore, a pocket onto its hole, a hole onto the face it enters) are not walls.
@@ -115,11 +116,12 @@ def measure_walls(plan: HubPlan) -> list[Wall]:
             if not near.any():
                 continue  # more than REFINE_BELOW_MM apart: not a wall any rule looks at
             sel = pts[near]
-            d = cj.sdf(sel)
-            k = int(np.argmin(d))
-            w = max(float(d[k]), 0.0)
+            w, k = _to_exposed(sel, j, cutters, body, exposed[j])
+            if not np.isfinite(w):
+                continue
+            w = max(w, 0.0)
             if w < REFINE_BELOW_MM:
-                w, at = _refine(ci, i, cj, cutters, body, sel[k], w)
+                w, at = _refine(ci, i, cj, j, cutters, body, sel[k], w)
             else:
                 at = sel[k]
             _keep(walls, ci.hole.id, cj.hole.id, w, at)
@@ -168,16 +170,55 @@ def _exposed(c: Cutter, i: int, cutters: list[Cutter], body: _Body, step: float,
     return pts
 
 
-def _refine(ci: Cutter, i: int, cj: Cutter, cutters, body, at, w: float):
+def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float):
     """The wall between two cuts again, from fine samples near the coarse least point,
     both ways."""
     best, where = w, at
-    for src, other, idx in ((ci, cj, i), (cj, ci, cutters.index(cj))):
-        fine = _exposed(src, idx, cutters, body, FINE_MM, near=(np.asarray(at), 3 * COARSE_MM + w))
-        if len(fine) == 0:
+    near = (np.asarray(at), 3 * COARSE_MM + w)
+    fine = {i: _exposed(ci, i, cutters, body, FINE_MM, near=near), j: _exposed(cj, j, cutters, body, FINE_MM, near=near)}
+    for src, dst in ((i, j), (j, i)):
+        if len(fine[src]) == 0:
             continue
-        d = other.sdf(fine)
-        k = int(np.argmin(d))
-        if d[k] < best:
-            best, where = max(float(d[k]), 0.0), fine[k]
+        dk, k = _to_exposed(fine[src], dst, cutters, body, fine[dst])
+        if dk < best:
+            best, where = max(dk, 0.0), fine[src][k]
     return best, where
+
+
+def _to_exposed(pts: np.ndarray, j: int, cutters: list[Cutter], body: _Body, cloud: np.ndarray) -> tuple[float, int]:
+    """Least distance from the points to the exposed surface of cut ``j``, and which point:
+    to its true shape where the nearest point of that shape is a surface of the part, else
+    to its exposed samples (where it runs into the bore, a socket or out of the body the
+    nearest material is on that rim). Points are taken nearest first and the search stops
+    once no remaining point can come nearer (the distance to the whole shape bounds it)."""
+    c = cutters[j]
+    d = c.sdf(pts)
+    order = np.argsort(d)
+    partners = [o for k, o in enumerate(cutters) if k != j and meets_by_design(c.hole, o.hole)]
+    best, best_k = np.inf, int(order[0]) if len(order) else 0
+    h = 1e-4
+    for lo in range(0, len(order), 256):
+        idx = order[lo:lo + 256]
+        if d[idx[0]] >= best:
+            break
+        p, dd = pts[idx], d[idx]
+        grad = np.stack([(c.sdf(p + e) - c.sdf(p - e)) / (2 * h) for e in np.eye(3) * h], axis=1)
+        n = grad / np.maximum(np.linalg.norm(grad, axis=1), 1e-12)[:, None]
+        q = p - dd[:, None] * n
+        ok = body.inside(q) | (dd <= 0)
+        for o in partners:
+            ok &= (o.sdf(q) >= -INSIDE_EPS_MM) | (dd <= 0)
+        dist = np.where(ok, dd, np.inf)
+        good = dist[ok].min() if ok.any() else np.inf
+        bad = np.nonzero(~ok & (dd < min(best, good)))[0]  # only those that could come nearer
+        if len(bad) and len(cloud):
+            reach = min(best, good, float(dd[bad].max()) + 2 * COARSE_MM)
+            lo_, hi_ = p[bad].min(axis=0) - reach, p[bad].max(axis=0) + reach
+            near = cloud[np.all((cloud >= lo_) & (cloud <= hi_), axis=1)]
+            if len(near):
+                diff = p[bad][:, None, :] - near[None, :, :]
+                dist[bad] = np.sqrt(np.einsum("ijk,ijk->ij", diff, diff).min(axis=1))
+        k = int(np.argmin(dist))
+        if dist[k] < best:
+            best, best_k = float(dist[k]), int(idx[k])
+    return best, best_k
