@@ -58,7 +58,8 @@ class Cutter:
             # the closed section mirrored about the axis, for exact distances on both sides
             self.section = np.concatenate([self.half, self.half[::-1] * np.array([-1.0, 1.0])])
             self.t0, self.t1, self.revolved = t0, self.half[:, 1].max(), True
-            self.plain = len(self.half) == 4 and hole.point_deg is None  # a plain cylinder: closed form
+            self.plain = (hole.countersink is None and hole.counterbore is None
+                          and hole.point_deg is None)  # a plain cylinder: closed form
 
     def _local(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         d = pts - self.E
@@ -101,6 +102,8 @@ class Cutter:
         else:
             ring = np.array(list(_walk(self.section, step, closed=True)))
             levels = np.linspace(self.t0, self.t1, max(2, int(math.ceil((self.t1 - self.t0) / step)) + 1))
+            # the entry and the depth: where a cut meets the face it enters or its far face
+            levels = np.union1d(levels, [t for t in (0.0, self.hole.depth_mm) if self.t0 < t < self.t1])
             if near is not None:
                 ring = ring[np.hypot(*(ring - qp).T) <= r]
                 levels = levels[np.abs(levels - tp) <= r]
@@ -134,12 +137,14 @@ def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
     if h.countersink is not None:
         half = math.radians(h.countersink.angle_deg / 2)
         R = h.countersink.diameter_mm / 2
-        pts += [(R + h.lead_mm * math.tan(half), t0), (r, (R - r) / math.tan(half))]
+        pts += [(R + h.lead_mm * math.tan(half), t0), (R, 0.0), (r, (R - r) / math.tan(half))]
     elif h.counterbore is not None:
         R, d = h.counterbore.diameter_mm / 2, h.counterbore.depth_mm
         pts += [(R, t0), (R, d), (r, d)]
     else:
         pts.append((r, t0))
+    if 0.0 < h.depth_mm < t1 - 1e-9 and pts[-1][1] < h.depth_mm:
+        pts.append((r, h.depth_mm))  # where a through hole leaves the far face: sampled exactly
     pts.append((r, t1))
     pts.append((0.0, t1 + point_depth_mm(h)))
     return pts

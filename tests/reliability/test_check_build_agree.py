@@ -54,7 +54,7 @@ def wide_configs(draw):
         holes.append(spec)
     if holes:
         data["holes"] = holes
-    data["output"] = {"tolerance": draw(st.sampled_from([0.02, 0.05, 0.3, 1.0])),
+    data["output"] = {"tolerance": round(draw(st.sampled_from([0.02, 0.05, 0.3, 1.0])) / k, 6),
                       "angular_tolerance": draw(st.sampled_from([5, 10, 30]))}
     return data
 
