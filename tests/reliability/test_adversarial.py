@@ -136,3 +136,31 @@ def test_signals_end_a_build_promptly_and_leave_nothing_running(tmp_path, delay_
     time.sleep(1.0)
     assert alive_in_group(proc.pid) == []
     assert not (out / NAME).exists()  # no half-written output
+
+
+def _config_with(tmp_path, mutate) -> pathlib.Path:
+    data = tomllib.loads(DEMO.read_text(encoding="utf-8"))
+    mutate(data)
+    path = tmp_path / "c.toml"
+    path.write_text(tomlout.dumps(data), encoding="utf-8")
+    return path
+
+
+@pytest.mark.parametrize("mutate", [
+    # a clamp screw through a narrow corner chamfer, level with sockets that dip towards the
+    # bore: 1.4 mm of acetal between the screw and a socket (under the 1.5 mm web)
+    lambda d: (d.__setitem__("mast_clamp", {"thread": "M5", "count": 1}),
+               d["hub"].__setitem__("corner_chamfer", 13), d["spreaders"].__setitem__("diameter", 20.3),
+               d["spreaders"].__setitem__("elevation", "10 deg"), d["hub"].__setitem__("bore", 51)),
+    # a blind hole whose drill point leaves 0.9 mm under it
+    lambda d: d.__setitem__("holes", [{"id": "X", "face": "top", "at": [-34.64, 20.0], "diameter": 6,
+                                       "depth": d["hub"]["thickness"] - 2.7}]),
+])
+def test_hard_limits_refuse_check_and_forced_build_alike(tmp_path, mutate):
+    cfg = _config_with(tmp_path, mutate)
+    out = tmp_path / "out"
+    checked = run("check", cfg)
+    built = run("build", cfg, "--out", out, "--force")
+    assert checked.returncode == 2 and built.returncode == 2
+    assert one_line(checked) == one_line(built)
+    assert not out.exists() or not any(out.iterdir())
