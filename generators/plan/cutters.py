@@ -123,6 +123,29 @@ class Cutter:
             out = out[np.linalg.norm(out - np.asarray(near[0]), axis=1) <= r]
         return out
 
+    def lines(self, step: float, near: tuple | None = None):
+        """Straight lines lying on the cutter's side, about ``step`` apart round it, as
+        (start points (N, 3), direction, length): the side of a prism, or the main cylinder
+        of a round hole."""
+        if self.revolved:
+            r = self.hole.radius_mm
+            seg = [(a[1], b[1]) for a, b in zip(self.half[:-1], self.half[1:])
+                   if abs(a[0] - r) < 1e-9 and abs(b[0] - r) < 1e-9 and b[1] > a[1]]
+            if not seg:
+                return None
+            ta, tb = seg[0][0], seg[-1][1]
+            n = max(6, int(math.ceil(2 * math.pi * r / step)))
+            ang = np.arange(n) * (2 * math.pi / n)
+            ring = np.stack([r * np.cos(ang), r * np.sin(ang)], axis=1)
+        else:
+            ta, tb = self.t0, self.t1
+            ring = np.array(list(_walk(self.section, step, closed=True)))
+        if near is not None:
+            _, q_ = self._local(np.asarray(near[0], dtype=float)[None])
+            ring = ring[np.hypot(*(ring - q_[0]).T) <= near[1]]
+        starts = self.E + self.a * ta + np.outer(ring[:, 0], self.x) + np.outer(ring[:, 1], self.y)
+        return starts, self.a, tb - ta
+
     def bounds(self) -> tuple[np.ndarray, np.ndarray]:
         """An axis-aligned box holding the cutter."""
         ends = np.array([self.E + self.a * self.t0, self.E + self.a * self.t1])

@@ -18,6 +18,7 @@ are not listed (no rule looks at walls that thick).
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 
 import numpy as np
@@ -176,12 +177,41 @@ def _apart(box_a, box_b, margin: float = REFINE_BELOW_MM) -> bool:
 def _exposed(c: Cutter, i: int, cutters: list[Cutter], body: _Body, step: float, near=None) -> np.ndarray:
     """Surface points of cutter ``i`` that are a surface of the part (optionally only
     within ``near = (point, radius)``)."""
+    partners = [o for j, o in enumerate(cutters) if j != i and meets_by_design(c.hole, o.hole)]
     pts = c.surface(step, near)
+    if partners:
+        pts = np.concatenate([pts, _rims(c, partners, step, near)])
     pts = pts[body.inside(pts)]
-    for j, o in enumerate(cutters):
-        if j != i and len(pts) and meets_by_design(c.hole, o.hole):
+    for o in partners:
+        if len(pts):
             pts = pts[o.sdf(pts) >= -INSIDE_EPS_MM]
     return pts
+
+
+def _rims(c: Cutter, partners: list[Cutter], step: float, near) -> np.ndarray:
+    """Points on the rim where a cut runs into a cut it meets by design (a socket into the
+    bore), found exactly by bisection along the lines of its side: the least wall to such a
+    cut is often on that rim, which surface samples only come near."""
+    got = c.lines(step, near)
+    if got is None or len(got[0]) == 0:
+        return np.empty((0, 3))
+    starts, a, length = got
+    ts = np.linspace(0.0, length, max(2, int(math.ceil(length / step)) + 1))
+    pts = starts[:, None, :] + ts[None, :, None] * a  # (lines, levels, 3)
+    g = np.min(np.stack([o.sdf(pts.reshape(-1, 3)) for o in partners]), axis=0).reshape(pts.shape[:2])
+    li, ki = np.nonzero((g[:, :-1] >= 0) != (g[:, 1:] >= 0))
+    if len(li) == 0:
+        return np.empty((0, 3))
+    lo, hi = ts[ki].copy(), ts[ki + 1].copy()
+    g_lo = g[li, ki] >= 0
+    for _ in range(24):  # to well under a micron
+        mid = (lo + hi) / 2
+        p = starts[li] + mid[:, None] * a
+        g_mid = np.min(np.stack([o.sdf(p) for o in partners]), axis=0) >= 0
+        same = g_mid == g_lo
+        lo, hi = np.where(same, mid, lo), np.where(same, hi, mid)
+    t = np.where(g_lo, lo, hi)  # the outside end: on the exposed side of the rim
+    return starts[li] + t[:, None] * a
 
 
 def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float):
