@@ -67,6 +67,7 @@ class Hole:
     nut: str | None = None
     insert: str | None = None
     compensation_mm: float = 0.0  # diametral, already included in diameter_mm
+    u_bolt: str | None = None  # plate hubs: the U-bolt whose leg passes here (spreader set, or none: the mast)
 
     @property
     def radius_mm(self) -> float:
@@ -113,7 +114,7 @@ class Face:
 class Body:
     """The hub body before any hole: a prism (block) or a cylinder (puck)."""
 
-    style: str  # block | puck
+    style: str  # block | puck | plate (round with diameter_mm, else a polygon)
     thickness_mm: float
     sides: int | None = None
     across_flats_mm: float | None = None
@@ -124,14 +125,14 @@ class Body:
 
     @property
     def outer_radius_mm(self) -> float:
-        """Apothem of the block, radius of the puck."""
-        if self.style == "puck":
+        """Apothem of the block or polygon plate, radius of the puck or round plate."""
+        if self.style == "puck" or (self.style == "plate" and self.diameter_mm is not None):
             return self.diameter_mm / 2.0
         return self.across_flats_mm / 2.0
 
     @property
     def corner_radius_mm(self) -> float:
-        if self.style == "puck":
+        if self.style == "puck" or (self.style == "plate" and self.diameter_mm is not None):
             return self.diameter_mm / 2.0
         return self.outer_radius_mm / math.cos(math.pi / self.sides)
 
