@@ -152,6 +152,17 @@ class Spreader:
 
 
 @dataclass(frozen=True)
+class Mark:
+    """A line to scribe on a face (a plate's pole stops and footprints), in hub coordinates."""
+
+    face: str
+    a: Vec
+    b: Vec
+    label: str = ""
+    dashed: bool = False
+
+
+@dataclass(frozen=True)
 class HubPlan:
     name: str
     units: str
@@ -165,6 +176,12 @@ class HubPlan:
     holes: tuple[Hole, ...]
     spreaders: tuple[Spreader, ...]
     notes: tuple[str, ...] = field(default=())
+    marks: tuple[Mark, ...] = field(default=())
+
+    @property
+    def file_stem(self) -> str:
+        """The stem of the hub's solid files: ``plate`` for a plate hub, else ``hub``."""
+        return "plate" if self.body.style == "plate" else "hub"
 
     def hole(self, hole_id: str) -> Hole:
         for h in self.holes:

@@ -23,7 +23,7 @@ from generators.errors import UserError
 from generators.plan import limits as L
 from generators.plan.geometry import Pt, edge_distance
 from generators.plan.holes import clearance_drill
-from generators.plan.model import Body, Face, Hole, HubPlan, Spreader
+from generators.plan.model import Body, Face, Hole, HubPlan, Mark, Spreader
 from generators.units import format_length
 
 OUTLINE_SEGMENTS = 180
@@ -164,7 +164,7 @@ class _PlatePlanner:
         plan = HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material, process="machined",
                        mast_designation=cfg.mast.size.designation, mast_od_mm=cfg.mast.size.od_mm, bore_mm=0.0,
                        body=self.body, faces=tuple(faces), holes=tuple(holes), spreaders=tuple(spreaders),
-                       notes=notes)
+                       notes=notes, marks=self._marks(layout))
         return plan, layout
 
     # ---- what a plate cannot do ---------------------------------------------------------
@@ -268,6 +268,22 @@ class _PlatePlanner:
         return UBolt(id=uid, holds=holds, spreader=sid, size=size, centre=centre, along=along,
                      holes=(f"{uid}-1", f"{uid}-2"), hole_mm=dia, drill=drill, washer=washer, nut=nut,
                      nut_face=nut_face, od_mm=od, leg_needed_mm=need)
+
+    def _marks(self, layout: PlateLayout) -> tuple[Mark, ...]:
+        """On the top face: each pole's stop line and footprint edges, and the mast's line."""
+        T, half = self.T, self.cfg.spreaders.diameter / 2
+        reach = self.body.corner_radius_mm
+        out = []
+        for sid, r_end in layout.stops:
+            d = _unit(self.cfg.spreaders.first_azimuth + (sid - 1) * 360.0 / self.N)
+            p = (-d[1], d[0])
+            at = lambda r, s: (r * d[0] + s * p[0], r * d[1] + s * p[1], T)  # noqa: E731
+            out.append(Mark("top", at(r_end, -half - 4), at(r_end, half + 4), f"S{sid} stop: pole end here"))
+            out += [Mark("top", at(r_end, s * half), at(reach, s * half), dashed=True) for s in (-1, 1)]
+        m = _unit(layout.mast_azimuth_deg)
+        L = reach
+        out.append(Mark("top", (-L * m[0], -L * m[1], T), (L * m[0], L * m[1], T), "mast axis (under the plate)", True))
+        return tuple(out)
 
     def _holes(self, u: UBolt) -> list[Hole]:
         what = f"spreader {u.spreader}" if u.spreader is not None else "the mast"
