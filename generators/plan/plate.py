@@ -33,8 +33,6 @@ EDGE_OVER_ROD = 1.5
 # Default spacing of a spreader's two U-bolts: 4 pole diameters (common practice: the pair
 # must resist the pole's moment as a couple, so wider is stronger).
 SPACING_OVER_POLE = 4.0
-# Free space between a washer and anything it must clear (common practice: room for a socket).
-WASHER_GAP_MM = 2.0
 
 
 @dataclass(frozen=True)

@@ -13,6 +13,9 @@ import math
 from generators.errors import UserError
 from generators.plan.geometry import point_segment_distance_2d
 
+# Free space between a washer and anything it must clear (common practice: room for a socket).
+WASHER_GAP_MM = 2.0
+
 
 def _dist(a, b) -> float:
     return math.hypot(a[0] - b[0], a[1] - b[1])
@@ -20,8 +23,7 @@ def _dist(a, b) -> float:
 
 def check_fit(cfg, body, layout, fmt) -> None:
     """Refuse a layout whose poles, mast, legs and washers meet."""
-    from generators.plan.plate import WASHER_GAP_MM as gap
-
+    gap = WASHER_GAP_MM
     sp = cfg.spreaders
     n = sp.count
     far = body.corner_radius_mm + sp.diameter

@@ -175,7 +175,7 @@ class PlateRules(PlacementRules):
                 if worst is None or ratio < worst[0]:
                     worst = (ratio, u)
         ratio, u = worst
-        st = FAIL if ratio < EDGE_MIN_ROD else WARN if ratio < EDGE_RECOMMENDED_ROD else PASS
+        st = FAIL if ratio < EDGE_MIN_ROD - 1e-6 else WARN if ratio < EDGE_RECOMMENDED_ROD - 1e-6 else PASS
         msg = f"U-bolt {u.id}: hole centre {ratio:.2f} rod diameters from the plate edge"
         if st != PASS:
             msg += ": a larger plate or a larger plate.edge_margin"

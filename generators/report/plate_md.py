@@ -16,7 +16,7 @@ def mast_row(d, md) -> list[str]:
     if d.plate is None:
         return ["bore", f"{md.both(d.plan.bore_mm)} through"]
     lay = d.plate
-    return ["mast", f"on the bottom face along azimuth {lay.mast_azimuth_deg % 360:g} deg, two U-bolts"
+    return ["mast clamp", f"on the bottom face along azimuth {lay.mast_azimuth_deg % 360:g} deg, two U-bolts"
                     f" {md.L(lay.mast_spacing_mm)} apart through the plate"]
 
 
