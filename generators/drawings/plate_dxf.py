@@ -68,5 +68,5 @@ def write_plate_dxf(ctx) -> None:
         "outline": "circle" if body.diameter_mm is not None else "polyline",
         "holes": holes,
     }
-    ctx.summary.append(f"  plate  {FILE}: outline ({CUT}) and {len(holes)} holes ({DRILL}) at 1:1 in {units},"
+    ctx.summary.append(f"  plate  {FILE}: outline ({CUT}) and {len(holes)} holes ({DRILL}) at 1:1 ({units}),"
                        " for cutting and the drill press")

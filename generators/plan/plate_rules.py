@@ -12,7 +12,8 @@ is wind square to it, across every pole at once:
 3. The pole rests on two supports, the U-bolts B and A, ``s`` apart (statics of an
    overhanging beam): ``R_B = F + M_B / s`` at B and ``R_A = M_B / s`` (the other way) at A.
    Each U-bolt's two legs share its force: leg tension ``R / 2`` against the tensile stress
-   area ``A_s = pi/4 (d - 0.9382 P)^2`` (ISO 898-1, from memory).
+   area ``A_s = pi/4 (d - 0.9382 P)^2`` (ISO 898-1; 0.9743 P for Unified threads, ASME B1.1;
+   from memory).
 4. Plate bending between the U-bolts, elastic rectangle ``sigma = 6 M / (b t^2)`` (Roark,
    "Formulas for Stress and Strain", beam of rectangular section; from memory):
    - at the inner U-bolt A, square to the pole: ``M = R_B s``, ``b`` the width B's load
@@ -220,7 +221,8 @@ class PlateRules(PlacementRules):
                               f"outer U-bolt legs ({u.size.thread.designation}): {w.leg_tension_n:.0f} N each,"
                               f" {sigma:.0f} MPa on the stress area: safety factor {sf:.2f}"
                               + ("" if st == PASS else ": a wider plate.u_bolt_spacing or a larger U-bolt"),
-                              f"A_s = pi/4 (d - 0.9382 P)^2 (ISO 898-1, from memory); {U_BOLT_YIELD_SOURCE}"))
+                              f"A_s = pi/4 (d - k P)^2, k 0.9382 metric (ISO 898-1), 0.9743 Unified (ASME B1.1), from memory;"
+                              f" {U_BOLT_YIELD_SOURCE}"))
         return out
 
 

@@ -22,8 +22,9 @@ from generators.units import MM_PER_IN
 # a looser U-bolt bends its bar instead of gripping).
 MIN_CLEARANCE_MM = 0.3
 MAX_CLEARANCE_MM = 4.0
-# Tensile stress area A_s = pi/4 (d - 0.9382 P)^2 (ISO 898-1 and ASME B1.1 formula, from memory).
-STRESS_AREA_K = 0.9382
+# Tensile stress area A_s = pi/4 (d - k P)^2: k = 0.9382 for ISO metric threads (ISO 898-1),
+# k = 0.9743 for Unified threads (ASME B1.1, A_s = 0.7854 (D - 0.9743/n)^2); from memory.
+STRESS_AREA_K_METRIC, STRESS_AREA_K_UNIFIED = 0.9382, 0.9743
 # Lower yield of a plain-steel U-bolt: ISO 898-1 property class 4.6, 240 MPa (from memory;
 # SAE J429 grade 2 is close); the table's U-bolts are assumed no stronger.
 U_BOLT_YIELD_MPA = 240.0
@@ -103,5 +104,6 @@ def plain_washer(thread: Thread | str, key: str = "thread") -> Washer:
 
 
 def stress_area_mm2(thread: Thread) -> float:
-    """Tensile stress area A_s = pi/4 (d - 0.9382 P)^2."""
-    return math.pi / 4.0 * (thread.major_mm - STRESS_AREA_K * thread.pitch_mm) ** 2
+    """Tensile stress area A_s = pi/4 (d - k P)^2 (k by thread system, see above)."""
+    k = STRESS_AREA_K_UNIFIED if thread.inch else STRESS_AREA_K_METRIC
+    return math.pi / 4.0 * (thread.major_mm - k * thread.pitch_mm) ** 2
