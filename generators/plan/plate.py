@@ -33,6 +33,9 @@ EDGE_OVER_ROD = 1.5
 # Default spacing of a spreader's two U-bolts: 4 pole diameters (common practice: the pair
 # must resist the pole's moment as a couple, so wider is stronger).
 SPACING_OVER_POLE = 4.0
+# Without a configured spacing, the planner steps the spreaders' spacing down from that to
+# 1.5 pole diameters, and the mast's from the widest the plate allows, until nothing meets.
+SEARCH_MIN_OVER_POLE, SEARCH_STEP_MM = 1.5, 5.0
 
 
 @dataclass(frozen=True)
@@ -109,8 +112,6 @@ class _PlatePlanner:
         return format_length(mm, self.units, fractions=False)
 
     def plan(self) -> tuple[HubPlan, PlateLayout]:
-        from generators.plan.plate_fit import check_fit
-
         cfg = self.cfg
         self._refusals()
         self.body = self._body()
@@ -118,14 +119,60 @@ class _PlatePlanner:
         sp = cfg.spreaders
         self.mast_az = (self.opt.mast_azimuth if self.opt.mast_azimuth is not None
                         else sp.first_azimuth + 180.0 / self.N)
-        u_sp = self._size(sp.diameter, "spreaders.diameter")
-        u_m = self._size(cfg.mast.size.od_mm, "mast.size")
-        edge = self._edge(u_sp)
-        spacing = self.opt.u_bolt_spacing or SPACING_OVER_POLE * sp.diameter
+        self.u_sp = self._size(sp.diameter, "spreaders.diameter")
+        self.u_m = self._size(cfg.mast.size.od_mm, "mast.size")
+        layout, spreaders = self._search()
+        u_bolts, s_m = layout.u_bolts, layout.mast_spacing_mm
+        holes = [h for u in u_bolts for h in self._holes(u)]
+        notes = (f"mast along azimuth {self.mast_az % 360:g} deg on the bottom face, held by {len(layout.mast_u_bolts)}"
+                 f" U-bolts {self.fmt(s_m)} apart",
+                 "each pole butts on its stop line, marked on the template and plate.dxf")
+        plan = HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material, process="machined",
+                       mast_designation=cfg.mast.size.designation, mast_od_mm=cfg.mast.size.od_mm, bore_mm=0.0,
+                       body=self.body, faces=tuple(faces), holes=tuple(holes), spreaders=tuple(spreaders),
+                       notes=notes, marks=self._marks(layout))
+        return plan, layout
+
+    # ---- layout ----------------------------------------------------------------------------
+    def _search(self):
+        """The layout with the widest spacings that fit: the configured ones, else the
+        defaults stepped down until nothing meets (the first refusal if none fits)."""
+        from generators.plan.plate_fit import check_fit
+
+        sp, u_sp, u_m = self.cfg.spreaders, self.u_sp, self.u_m
+        self.edge = self._edge(u_sp)
+        t_max = min(self._reach(self.mast_az + k, u_m.leg_spacing_mm / 2, self._edge(u_m), "plate.mast_u_bolt_spacing")
+                    for k in (0.0, 180.0))
+        self.t_max = t_max
+        self.r_out = {i: self._reach(sp.first_azimuth + i * 360.0 / self.N, u_sp.leg_spacing_mm / 2, self.edge,
+                                     "plate.edge_margin") for i in range(self.N)}
+        if self.opt.u_bolt_spacing:
+            spacings = [self.opt.u_bolt_spacing]
+        else:
+            top, low = SPACING_OVER_POLE * sp.diameter, SEARCH_MIN_OVER_POLE * sp.diameter
+            spacings = [top - SEARCH_STEP_MM * k for k in range(int((top - low) / SEARCH_STEP_MM) + 1)]
+        if self.opt.mast_u_bolt_spacing:
+            mast = [self.opt.mast_u_bolt_spacing]
+        else:
+            low = u_m.leg_spacing_mm
+            mast = [2 * t_max - 2 * SEARCH_STEP_MM * k for k in range(int((2 * t_max - low) / (2 * SEARCH_STEP_MM)) + 1)]
+        first = None
+        for spacing in spacings:
+            for s_m in mast:
+                try:
+                    layout, spreaders = self._layout(spacing, s_m)
+                    check_fit(self.cfg, self.body, layout, self.fmt)
+                    return layout, spreaders
+                except UserError as e:
+                    first = first or e
+        raise first
+
+    def _layout(self, spacing: float, s_m: float):
+        cfg, sp, u_sp, u_m, edge = self.cfg, self.cfg.spreaders, self.u_sp, self.u_m, self.edge
         u_bolts, stops, spreaders = [], [], []
         for i in range(self.N):
             sid, az = i + 1, sp.first_azimuth + i * 360.0 / self.N
-            r_out = self._reach(az, u_sp.leg_spacing_mm / 2, edge, "plate.edge_margin")
+            r_out = self.r_out[i]
             r_in = r_out - spacing
             r_end = r_in - u_sp.rod_mm / 2 - sp.diameter
             if r_end <= 0:
@@ -143,9 +190,7 @@ class _PlatePlanner:
                                       bottom_mm=(r_end * d[0], r_end * d[1], self.T + sp.diameter / 2),
                                       stop_radius_mm=r_end, stop="stop line on the plate"))
         m = _unit(self.mast_az)
-        t_max = min(self._reach(self.mast_az + k, u_m.leg_spacing_mm / 2, self._edge(u_m), "plate.mast_u_bolt_spacing")
-                    for k in (0.0, 180.0))
-        s_m = self.opt.mast_u_bolt_spacing or 2 * t_max
+        t_max = self.t_max
         if s_m / 2 > t_max + 1e-6:
             raise UserError("plate.mast_u_bolt_spacing", f"{self.fmt(s_m)} puts the mast U-bolts off the plate"
                             " or too near its edge", f"at most {self.fmt(2 * t_max)}")
@@ -154,16 +199,7 @@ class _PlatePlanner:
             u_bolts.append(self._u_bolt(f"UM{k}", "mast", None, u_m, c, m, cfg.mast.size.od_mm, "top"))
         layout = PlateLayout(family=self.family, mast_azimuth_deg=self.mast_az, edge_mm=edge, spacing_mm=spacing,
                              mast_spacing_mm=s_m, u_bolts=tuple(u_bolts), stops=tuple(stops))
-        check_fit(cfg, self.body, layout, self.fmt)
-        holes = [h for u in u_bolts for h in self._holes(u)]
-        notes = (f"mast along azimuth {self.mast_az % 360:g} deg on the bottom face, held by {len(layout.mast_u_bolts)}"
-                 f" U-bolts {self.fmt(s_m)} apart",
-                 "each pole butts on its stop line, marked on the template and plate.dxf")
-        plan = HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material, process="machined",
-                       mast_designation=cfg.mast.size.designation, mast_od_mm=cfg.mast.size.od_mm, bore_mm=0.0,
-                       body=self.body, faces=tuple(faces), holes=tuple(holes), spreaders=tuple(spreaders),
-                       notes=notes, marks=self._marks(layout))
-        return plan, layout
+        return layout, spreaders
 
     # ---- what a plate cannot do ---------------------------------------------------------
     def _refusals(self):
