@@ -304,20 +304,34 @@ class _PlatePlanner:
                      nut_face=nut_face, od_mm=od, leg_needed_mm=need)
 
     def _marks(self, layout: PlateLayout) -> tuple[Mark, ...]:
-        """On the top face: each pole's stop line and footprint edges, and the mast's line."""
+        """On the top face: each pole's stop line and footprint edges, and the mast's line,
+        each clipped to the plate."""
         T, half = self.T, self.cfg.spreaders.diameter / 2
-        reach = self.body.corner_radius_mm
         out = []
         for sid, r_end in layout.stops:
             d = _unit(self.cfg.spreaders.first_azimuth + (sid - 1) * 360.0 / self.N)
             p = (-d[1], d[0])
             at = lambda r, s: (r * d[0] + s * p[0], r * d[1] + s * p[1], T)  # noqa: E731
             out.append(Mark("top", at(r_end, -half - 4), at(r_end, half + 4), f"S{sid} stop: pole end here"))
-            out += [Mark("top", at(r_end, s * half), at(reach, s * half), dashed=True) for s in (-1, 1)]
+            for s in (-1, 1):
+                start = (r_end * d[0] + s * half * p[0], r_end * d[1] + s * half * p[1])
+                reach = self._to_edge(start, d)
+                out.append(Mark("top", at(r_end, s * half), at(r_end + reach, s * half), dashed=True))
         m = _unit(layout.mast_azimuth_deg)
-        L = reach
-        out.append(Mark("top", (-L * m[0], -L * m[1], T), (L * m[0], L * m[1], T), "mast axis (under the plate)", True))
+        a, b = self._to_edge((0.0, 0.0), (-m[0], -m[1])), self._to_edge((0.0, 0.0), m)
+        out.append(Mark("top", (-a * m[0], -a * m[1], T), (b * m[0], b * m[1], T), "mast axis (under the plate)", True))
         return tuple(out)
+
+    def _to_edge(self, start: Pt, d: Pt) -> float:
+        """How far from ``start`` along ``d`` the plate's edge is (bisection; start inside)."""
+        from generators.plan.geometry import inside_polygon
+
+        lo, hi = 0.0, 2 * self.body.corner_radius_mm
+        for _ in range(50):
+            mid = (lo + hi) / 2
+            lo, hi = (mid, hi) if inside_polygon((start[0] + d[0] * mid, start[1] + d[1] * mid), self.body.outline) \
+                else (lo, mid)
+        return lo
 
     def _holes(self, u: UBolt) -> list[Hole]:
         what = f"spreader {u.spreader}" if u.spreader is not None else "the mast"

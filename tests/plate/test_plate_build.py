@@ -177,3 +177,26 @@ def test_report_lists_u_bolts_nuts_and_washers(built):
     assert f"| {2 * n_sp} | hex nut | M8x1.25" in text
     assert f"| {2 * n_sp} | plain washer |" in text
     assert "| 2 | U-bolt for the mast" in text and "| 4 | hex nut | M12x1.75" in text
+
+
+@pytest.mark.slow
+def test_template_marks_each_stop_line_at_the_cut_lists_stop(built):
+    """The top template (read with ezdxf) draws every hole of the face and, across each pole,
+    a stop line at the radius the cut list measures from (hand geometry: a line square to
+    the pole's azimuth at that radius)."""
+    import ezdxf
+
+    folder, manifest = built
+    rec = next(t for t in manifest["templates"] if t["face"] == "top")
+    msp = ezdxf.readfile(folder / rec["file"]).modelspace()
+    circles = [e for e in msp.query("CIRCLE") if e.dxf.layer == "HOLES"]
+    assert len(circles) == len(manifest["holes"])
+    lines = [e for e in msp.query("LINE") if e.dxf.layer == "NOTES"]
+    for s in manifest["spreaders"]:
+        az = math.radians(s["azimuth_deg"])
+        r = s["stop_radius_mm"]
+        assert s["cut_stop"] == "stop line on the plate"
+        found = [ln for ln in lines
+                 if all(abs(p.x * math.cos(az) + p.y * math.sin(az) - r) < 1e-6 for p in (ln.dxf.start, ln.dxf.end))
+                 and math.hypot(ln.dxf.end.x - ln.dxf.start.x, ln.dxf.end.y - ln.dxf.start.y) > s["diameter_mm"]]
+        assert len(found) == 1, s["id"]
