@@ -55,10 +55,14 @@ class PlateWind:
     plate_stress_mpa: float | None = None  # the worse of the two sections
     leg_tension_n: float | None = None
     solid_pole: bool = False
+    sf_plate: float | None = None
+    sf_legs: float | None = None
 
     @property
     def safety_factor(self) -> float | None:
-        return self.sf_spreader
+        """The lowest of the pole's, the plate's and the U-bolt legs' safety factors."""
+        sfs = [x for x in (self.sf_spreader, self.sf_plate, self.sf_legs) if x is not None]
+        return min(sfs) if sfs else None
 
     def as_json(self) -> dict:
         r = lambda x, n=3: None if x is None else round(x, n)  # noqa: E731
@@ -107,12 +111,17 @@ class PlateRules(PlacementRules):
         from generators.standards.materials import get_material
 
         pole = get_material(ld.spreader_material, key="loads.spreader_material")
+        from generators.standards.ubolts import U_BOLT_YIELD_MPA, stress_area_mm2
+
         r_B, r_A = F + m_b / s, m_b / s
+        plate = max(self._strip_stress(r_B), self._mast_stress(r_B, r_A))
+        leg = r_B / 2 / stress_area_mm2(lay.for_spreader(1)[-1].size.thread)
         return PlateWind(ld.wind_speed, q, None, force_per_spreader_n=F, moment_at_hub_nm=m_b,
                          spreader_stress_mpa=sigma, sf_spreader=pole.yield_mpa / sigma if sigma > 0 else None,
-                         exposed_length_m=L, outer_force_n=r_B, inner_force_n=r_A,
-                         plate_stress_mpa=max(self._strip_stress(r_B), self._mast_stress(r_B, r_A)),
-                         leg_tension_n=r_B / 2, solid_pole=d_in is None)
+                         exposed_length_m=L, outer_force_n=r_B, inner_force_n=r_A, plate_stress_mpa=plate,
+                         leg_tension_n=r_B / 2, solid_pole=d_in is None,
+                         sf_plate=self.mat.yield_mpa / plate if plate > 0 else None,
+                         sf_legs=U_BOLT_YIELD_MPA / leg if leg > 0 else None)
 
     # ---- the plate sections ---------------------------------------------------------------
     def _strip_stress(self, r_b_n: float) -> float:
@@ -206,7 +215,7 @@ class PlateRules(PlacementRules):
                               f" {w.sf_spreader:.2f}" + ("" if st == PASS else ": a stiffer pole or shorter spreaders"),
                               "sigma = M c / I, M = w L^2/2 + F_wire L (Gere; Roark; from memory); q = rho V^2 / 2,"
                               " Cd from the config (Hoerner; White; from memory)"))
-        sf = self.mat.yield_mpa / w.plate_stress_mpa
+        sf = w.sf_plate
         st = _grade(sf, SF_PLATE)
         out.append(RuleResult("plate-bending", st, sf, SF_PLATE, "SF",
                               f"plate {self.fmt(self.T)} thick: {w.plate_stress_mpa:.0f} MPa in bending between the"
@@ -215,7 +224,7 @@ class PlateRules(PlacementRules):
                                  " a wider plate.u_bolt_spacing"), PLATE_SRC))
         u = self.layout.for_spreader(1)[-1]
         sigma = w.leg_tension_n / stress_area_mm2(u.size.thread)
-        sf = U_BOLT_YIELD_MPA / sigma
+        sf = w.sf_legs
         st = _grade(sf, SF_PLATE)
         out.append(RuleResult("u-bolt-tension", st, sf, SF_PLATE, "SF",
                               f"outer U-bolt legs ({u.size.thread.designation}): {w.leg_tension_n:.0f} N each,"
