@@ -200,3 +200,34 @@ def test_template_marks_each_stop_line_at_the_cut_lists_stop(built):
                  if all(abs(p.x * math.cos(az) + p.y * math.sin(az) - r) < 1e-6 for p in (ln.dxf.start, ln.dxf.end))
                  and math.hypot(ln.dxf.end.x - ln.dxf.start.x, ln.dxf.end.y - ln.dxf.start.y) > s["diameter_mm"]]
         assert len(found) == 1, s["id"]
+
+
+@pytest.mark.slow
+def test_holes_found_in_the_solid_straddle_each_pole_at_the_tables_spacing(built):
+    """From the STEP alone: every cylindrical wall (a hole) is found by its centre; around each
+    pole's axis there are two pairs of holes, each pair one table leg spacing apart, square to
+    the pole and centred on its axis (reference: the U-bolt table, read with csv)."""
+    import cadquery as cq
+
+    folder, manifest = built
+    solid = cq.importers.importStep(str(folder / "plate.step")).val()
+    found = []
+    for f in solid.Faces():
+        if f.geomType() == "CYLINDER":
+            c = f.Center()
+            found.append((c.x, c.y, f.Area() / (2 * math.pi * manifest["hub"]["thickness_mm"])))
+    assert len(found) == len(manifest["holes"])
+    sizes = {u["spreader"]: u["size"] for u in manifest["plate"]["u_bolts"] if u["holds"] == "spreader"}
+    for s in manifest["spreaders"]:
+        az = s["azimuth_deg"]
+        half = leg_spacing_from_table(sizes[s["id"]]) / 2
+        t = math.radians(az)
+        along = [(x * math.cos(t) + y * math.sin(t), -x * math.sin(t) + y * math.cos(t))
+                 for x, y, _ in found]
+        beside = [(a, c) for a, c in along if a > 0 and abs(abs(c) - half) < 1e-4]
+        # two U-bolts: two radii along the pole, each with one hole either side
+        radii = sorted({round(a, 3) for a, _ in beside})
+        assert len(radii) == 2, s["id"]
+        for r in radii:
+            sides = sorted(c for a, c in beside if abs(a - r) < 1e-3)
+            assert sides == pytest.approx([-half, half], abs=1e-4)
