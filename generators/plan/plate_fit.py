@@ -63,6 +63,12 @@ def check_fit(cfg, body, layout, fmt) -> None:
         for c in u.leg_points:
             off = abs(-md[1] * c[0] + md[0] * c[1])
             free = off - cfg.mast.size.od_mm / 2 - wr
+            along_mast = abs(u.along[0] * md[1] - u.along[1] * md[0]) < 1e-6
+            if free < gap and along_mast:
+                raise UserError("plate.mast_azimuth", f"spreader {u.spreader} lies along the mast's line, where its"
+                                f" U-bolts' nuts under the plate meet the mast ({fmt(max(free, 0))} apart)",
+                                "a mast line between spreaders; with an odd spreader count one pole is always on"
+                                " it: an even count, or a block or puck hub")
             if free < gap:
                 raise UserError("plate.u_bolt_spacing", f"U-bolt {u.id}'s nut and washer under the plate come within"
                                 f" {fmt(max(free, 0))} of the mast", f"at least {fmt(gap)}: move the inner U-bolts"

@@ -175,3 +175,11 @@ def test_plate_section_only_with_a_plate():
     data = case(hub__style="block")
     with pytest.raises(UserError):
         parse_config(data)
+
+
+def test_odd_count_puts_a_pole_on_the_mast_line():
+    """Three spreaders 120 deg apart: a line through the centre between two of them runs
+    along the third (geometry), whose U-bolt nuts then sit on the mast."""
+    with pytest.raises(UserError) as e:
+        design_of(spreaders__count=3, spreaders__first_azimuth=90, hub__across_flats=360, plate__u_bolt_spacing=None)
+    assert e.value.key == "plate.mast_azimuth" and "odd" in e.value.accepted
