@@ -10,7 +10,7 @@ from generators.config import Config, load_config
 from generators.errors import DesignRuleError, KernelError, UserError
 from generators.output import atomic_folder
 from generators.design import Design, design
-from generators.manifest import plan_record, write_changes, write_manifest
+from generators.manifest import plan_record, plate_record, write_changes, write_manifest
 from generators.writers import run_writers
 
 # Each writer is "module:function", called with the BuildContext in this order. A
@@ -24,6 +24,7 @@ WRITERS: tuple[str, ...] = (
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
     "generators.drawings.writer:write_templates",
+    "generators.drawings.plate_dxf:write_plate_dxf",
     "generators.drawings.sleeve:write_sleeve_templates",
     "generators.report.writer:write_report",
 )
@@ -137,6 +138,8 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
             run_writers(WRITERS, ctx)
             record = plan_record(d.plan, ctx.volume_mm3)
             _add_walls(record, d, ctx.solid_wall)
+            if d.plate is not None:
+                record["plate"] = plate_record(d.plate)
             _add_tap_depths(record, d)
             record.update(ctx.manifest)
             manifest = write_manifest(tmp, record)

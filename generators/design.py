@@ -29,6 +29,7 @@ class Design:
     material_class: str
     operations: tuple  # Operation, hub faces in plan order
     sleeve_operations: tuple  # (sleeve stem, tuple of Operation)
+    plate: object | None = None  # plan.plate.PlateLayout of a plate hub (its U-bolts and stops)
 
     @property
     def checks_json(self) -> dict:
@@ -59,6 +60,8 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
     from generators.plan.tipcap import tip_cap_plan
 
     masts = tuple(masts)
+    if cfg.hub.style == "plate":
+        return _plate_design(cfg, masts)
     plan = build_plan(cfg)
     sleeves = tuple(plan_sleeves(cfg, plan, masts))
     series = drill_series(cfg)
@@ -73,3 +76,32 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
         operations=plan_operations(plan, cfg, series, mclass),
         sleeve_operations=tuple((s.stem, plan_operations(sp, cfg, series, mclass)) for s, sp in sleeve_plans),
     )
+
+
+def _plate_design(cfg: Config, masts: tuple[str, ...]) -> Design:
+    """A plate hub: its own planner and rules, rendered by the same writers."""
+    from generators.errors import UserError
+    from generators.plan.cutlist import cut_case, tip_radius_mm
+    from generators.plan.holes import material_class
+    from generators.plan.operations import plan_operations
+    from generators.plan.plate import plate_plan
+    from generators.plan.hard_limits import check_hard_limits
+    from generators.plan.measured_walls import measure_walls
+    from generators.plan.plate_rules import plate_checks
+    from generators.plan.shop import drill_series
+    from generators.plan.tipcap import tip_cap_plan
+
+    if masts:
+        raise UserError("--mast", "a plate hub has no bore for a sleeve", "build a plate without --mast")
+    plan, layout = plate_plan(cfg)
+    walls = tuple(measure_walls(plan))
+    check_hard_limits(cfg, plan, walls)
+    series, mclass = drill_series(cfg), material_class(cfg.hub.material)
+    cuts = ()
+    if tip_radius_mm(cfg) is not None:
+        cuts = (cut_case(cfg, plan, "stop line on the plate", "floor", plan.spreaders[0].stop_radius_mm),)
+    return Design(
+        config=cfg, masts=(), plan=plan, sleeves=(), sleeve_plans=(), cut_cases=cuts, jig=None,
+        jig_reason="a plate's poles lie flat: no angle to drill", tip_cap=tip_cap_plan(cfg),
+        checks=plate_checks(cfg, plan, layout), walls=walls, series=series, material_class=mclass,
+        operations=plan_operations(plan, cfg, series, mclass), sleeve_operations=(), plate=layout)

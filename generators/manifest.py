@@ -65,6 +65,10 @@ def _print_fields(h: Hole) -> dict[str, Any]:
             out[key] = getattr(h, key)
     if h.compensation_mm:
         out["compensation_mm"] = _r(h.compensation_mm)
+    if h.u_bolt is not None:
+        out["u_bolt"] = h.u_bolt
+        if h.spreader is None:
+            out["mast"] = True
     return out
 
 
@@ -78,6 +82,8 @@ def plan_record(plan: HubPlan, volume_mm3: float | None = None) -> dict[str, Any
     if body.style == "block":
         hub["across_flats_mm"] = _r(body.across_flats_mm)
         hub["corner_chamfer_mm"] = _r(body.corner_chamfer_mm)
+    elif body.diameter_mm is None:  # a polygon plate
+        hub["across_flats_mm"] = _r(body.across_flats_mm)
     else:
         hub["diameter_mm"] = _r(body.diameter_mm)
     hub.update({
@@ -104,6 +110,31 @@ def plan_record(plan: HubPlan, volume_mm3: float | None = None) -> dict[str, Any
             for s in plan.spreaders
         ],
         "notes": list(plan.notes),
+    }
+
+
+def plate_record(layout) -> dict[str, Any]:
+    """A plate hub's U-bolts (with their nuts and washers), spacings and pole stops."""
+    return {
+        "u_bolt_family": layout.family,
+        "mast_azimuth_deg": _r(layout.mast_azimuth_deg % 360),
+        "u_bolt_spacing_mm": _r(layout.spacing_mm),
+        "mast_u_bolt_spacing_mm": _r(layout.mast_spacing_mm),
+        "edge_margin_mm": _r(layout.edge_mm),
+        "u_bolts": [{
+            "id": u.id, "holds": u.holds, "spreader": u.spreader, "size": u.size.size,
+            "thread": u.size.thread.designation, "inside_width_mm": _r(u.size.inside_width_mm),
+            "leg_spacing_mm": _r(u.leg_spacing_mm), "leg_length_mm": _r(u.size.leg_length_mm),
+            "leg_needed_mm": _r(u.leg_needed_mm), "od_held_mm": _r(u.od_mm),
+            "centre_mm": [_r(c) for c in u.centre], "along": [_r(c, 9) for c in u.along],
+            "holes": list(u.holes), "hole_mm": _r(u.hole_mm), "drill": u.drill, "nut_face": u.nut_face,
+            "nuts": {"count": 2, "thread": u.size.thread.designation, "across_flats_mm": _r(u.nut.across_flats_mm),
+                     "height_mm": _r(u.nut.height_mm), "standard": u.nut.standard},
+            "washers": {"count": 2, "inside_mm": _r(u.washer.inside_mm), "outside_mm": _r(u.washer.outside_mm),
+                        "thickness_mm": _r(u.washer.thickness_mm), "standard": u.washer.standard},
+            "source": u.size.source,
+        } for u in layout.u_bolts],
+        "stops": [{"spreader": sid, "radius_mm": _r(r)} for sid, r in layout.stops],
     }
 
 

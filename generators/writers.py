@@ -18,6 +18,7 @@ from generators.errors import UserError
 
 # Writers that read only the plan and the config (never a file another writer made).
 BESIDE_CAD = frozenset({"generators.drawings.writer:write_templates",
+                        "generators.drawings.plate_dxf:write_plate_dxf",
                         "generators.drawings.sleeve:write_sleeve_templates"})
 
 

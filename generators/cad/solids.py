@@ -16,7 +16,7 @@ def _vec(p) -> cq.Vector:
 
 def body_solid(body: Body) -> cq.Solid:
     """The uncut body: a prism from the outline, or a true cylinder for a puck."""
-    if body.style == "puck":
+    if body.style == "puck" or (body.style == "plate" and body.diameter_mm is not None):
         return cq.Solid.makeCylinder(body.diameter_mm / 2, body.thickness_mm)
     wp = cq.Workplane("XY").polyline([(float(x), float(y)) for x, y in body.outline]).close()
     return wp.extrude(body.thickness_mm).val()

@@ -1,4 +1,4 @@
-"""Build writer for the hub solid: hub.step, hub.stl, hub.3mf."""
+"""Build writer for the hub solid: hub.step, hub.stl, hub.3mf (a plate hub: plate.*)."""
 
 from __future__ import annotations
 
@@ -9,7 +9,7 @@ from generators.cad.solids import hub_solid
 def write_hub(ctx) -> None:
     out = ctx.config.output
     solid = hub_solid(ctx.plan)
-    vols = write_solid_files(solid, ctx.folder, "hub", out.tolerance, out.angular_tolerance)
+    vols = write_solid_files(solid, ctx.folder, ctx.plan.file_stem, out.tolerance, out.angular_tolerance)
     v_solid, v_mesh = vols["solid_volume_mm3"], vols["mesh_volume_mm3"]
     ctx.volume_mm3 = v_solid
     ctx.solid_wall = solid_wall(solid, ctx)

@@ -29,11 +29,18 @@ def wind_lines(wind: dict, units: str) -> list[str]:
     lines = [f"wind  {speed_text(w['speed_m_s'], units)}: dynamic pressure {w['pressure_pa']:.0f} Pa"]
     if w["force_per_spreader_n"] is None:
         return lines + ["      loads not estimated (no tip position: spreaders.tip_radius or tip_spacing)"]
+    if w.get("plate_stress_mpa") is not None:  # a plate hub: U-bolt and plate figures
+        held = (f"      spreader stress {w['spreader_stress_mpa']:.0f} MPa, plate bending {w['plate_stress_mpa']:.0f} MPa,"
+                f" U-bolt leg {w['u_bolt_leg_tension_n']:.0f} N")
+        where = "the outer U-bolt"
+    else:
+        held = (f"      spreader stress {w['spreader_stress_mpa']:.0f} MPa, bearing on the socket"
+                f" {w['bearing_pressure_mpa']:.1f} MPa, set-screw pull {w['set_screw_pull_n']:.0f} N")
+        where = "the socket mouth"
     lines += [
         f"      force per spreader {w['force_per_spreader_n']:.1f} N,"
-        f" moment at the socket mouth {w['moment_at_hub_nm']:.1f} N m",
-        f"      spreader stress {w['spreader_stress_mpa']:.0f} MPa, bearing on the socket"
-        f" {w['bearing_pressure_mpa']:.1f} MPa, set-screw pull {w['set_screw_pull_n']:.0f} N",
+        f" moment at {where} {w['moment_at_hub_nm']:.1f} N m",
+        held,
         f"      lowest safety factor {w['safety_factor']:.2f}"
         if w["safety_factor"] is not None else "      no safety factor computed",
     ]

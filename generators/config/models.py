@@ -64,7 +64,7 @@ class Mast(Section):
 
 
 class Hub(Section):
-    style: Literal["block", "puck"] = "block"
+    style: Literal["block", "puck", "plate"] = "block"
     sides: Annotated[int, Field(ge=3, le=48)] | None = None
     across_flats: PositiveLength | None = None
     diameter: PositiveLength | None = None
@@ -85,7 +85,21 @@ class Hub(Section):
             raise ValueError("diameter: only a puck has a diameter (a block uses across_flats)")
         if self.style == "puck" and (self.across_flats is not None or self.sides is not None):
             raise ValueError("across_flats: a puck has no flats (use diameter, or style = \"block\")")
+        if self.style == "plate" and (self.diameter is None) == (self.across_flats is None):
+            raise ValueError("diameter: a plate needs diameter (round) or across_flats (a polygon), one of them")
+        if self.style == "plate" and self.diameter is not None and self.sides is not None:
+            raise ValueError("sides: a round plate has no sides (use across_flats for a polygon)")
         return self
+
+
+class Plate(Section):
+    """A plate hub's own keys (hub.style = "plate"); the defaults are in generators/plan/plate.py."""
+
+    u_bolts: Literal["metric", "inch"] | None = None  # U-bolt family; default: the config's units
+    mast_azimuth: Azimuth | None = None  # the mast's line on the plate; default between spreaders 1 and 2
+    mast_u_bolt_spacing: PositiveLength | None = None  # between the two mast U-bolts, along the mast
+    u_bolt_spacing: PositiveLength | None = None  # between a spreader's two U-bolts, along the pole
+    edge_margin: PositiveLength | None = None  # plate edge to the outer U-bolt's legs
 
 
 class Spreaders(Section):
@@ -237,6 +251,7 @@ class Config(Section):
     reducers: tuple[Reducer, ...] = ()
     print: Print = Print()
     tip_cap: TipCap | None = None
+    plate: Plate | None = None
 
     @field_validator("name")
     @classmethod
@@ -247,6 +262,12 @@ class Config(Section):
             raise ValueError(f"{value!r} cannot name an output folder"
                              " (letters, digits, '-', '_' and '.', starting with a letter or digit)")
         return value
+
+    @model_validator(mode="after")
+    def _plate_section(self):
+        if self.plate is not None and self.hub.style != "plate":
+            raise ValueError("plate: [plate] is for hub.style = \"plate\" only")
+        return self
 
     @model_validator(mode="after")
     def _unique_hole_ids(self):

@@ -84,7 +84,11 @@ class SheetProse:
     def _notes(self, tilts: dict[str, Tilt]) -> list[str]:
         f, u = self.face, self.units
         notes = []
-        if f.kind == "top":
+        if f.kind == "top" and self.plan.body.style == "plate":
+            notes.append("Up on the sheet is +Y of the plate, right is +X; each spreader's name is written on its"
+                         " pole's footprint (dashed). Datum 0,0: the plate's centre. Each pole's cut end sits on"
+                         " its stop line; the dashed line through the datum is the mast's axis, under the plate.")
+        elif f.kind == "top":
             notes.append("Up on the sheet is +Y of the hub, right is +X; each spreader's name is written just inside"
                          " the edge its socket enters. Datum 0,0: the mast axis.")
         elif f.kind == "bottom":

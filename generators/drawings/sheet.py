@@ -63,6 +63,7 @@ class _SheetBuilder(SheetProse):
                       frame=self.frame.record())
         self._outline()
         self._orientation()
+        self._marks()
         self._datum()
         tilts = {}
         for h in self.holes:
@@ -152,6 +153,16 @@ class _SheetBuilder(SheetProse):
             self.items.append(Label(LABELS, ((x0 + x1) / 2, y1 + 1.0), "this edge towards the top face",
                                     SMALL_MM, "center", "bottom"))
             self.items.append(Label(LABELS, (x0, y0 - 4.0), "bottom face edge", SMALL_MM, "left", "top"))
+
+    def _marks(self):
+        """The plan's scribe lines on this face (a plate's pole stops and footprints)."""
+        for m in getattr(self.plan, "marks", ()):
+            if m.face != self.face.id:
+                continue
+            a, b = self.frame.uv(m.a), self.frame.uv(m.b)
+            self.items.append(Line(NOTES, a, b, dashed=m.dashed))
+            if m.label:
+                self.items.append(Label(LABELS, (b[0] + 1.0, b[1] + 1.0), m.label, SMALL_MM))
 
     def _datum(self):
         L = DATUM_ARROW_MM

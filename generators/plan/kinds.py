@@ -17,6 +17,7 @@ class HoleKind(StrEnum):
     EXTRA = "extra"
     NUT_POCKET = "nut_pocket"
     INSERT_POCKET = "insert_pocket"
+    U_BOLT = "u_bolt"  # a plate hub's through hole for one U-bolt leg
 
 
 # Pockets for captive nuts and heat-set inserts (printed hubs): they carry a thread for

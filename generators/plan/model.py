@@ -69,6 +69,7 @@ class Hole:
     compensation_mm: float = 0.0  # diametral, already included in diameter_mm
     # A blind drilled hole ends in the drill's point cone of this included angle (None: flat).
     point_deg: float | None = None
+    u_bolt: str | None = None  # plate hubs: the U-bolt whose leg passes here (spreader set, or none: the mast)
 
     @property
     def radius_mm(self) -> float:
@@ -115,7 +116,7 @@ class Face:
 class Body:
     """The hub body before any hole: a prism (block) or a cylinder (puck)."""
 
-    style: str  # block | puck
+    style: str  # block | puck | plate (round with diameter_mm, else a polygon)
     thickness_mm: float
     sides: int | None = None
     across_flats_mm: float | None = None
@@ -126,14 +127,14 @@ class Body:
 
     @property
     def outer_radius_mm(self) -> float:
-        """Apothem of the block, radius of the puck."""
-        if self.style == "puck":
+        """Apothem of the block or polygon plate, radius of the puck or round plate."""
+        if self.style == "puck" or (self.style == "plate" and self.diameter_mm is not None):
             return self.diameter_mm / 2.0
         return self.across_flats_mm / 2.0
 
     @property
     def corner_radius_mm(self) -> float:
-        if self.style == "puck":
+        if self.style == "puck" or (self.style == "plate" and self.diameter_mm is not None):
             return self.diameter_mm / 2.0
         return self.outer_radius_mm / math.cos(math.pi / self.sides)
 
@@ -153,6 +154,17 @@ class Spreader:
 
 
 @dataclass(frozen=True)
+class Mark:
+    """A line to scribe on a face (a plate's pole stops and footprints), in hub coordinates."""
+
+    face: str
+    a: Vec
+    b: Vec
+    label: str = ""
+    dashed: bool = False
+
+
+@dataclass(frozen=True)
 class HubPlan:
     name: str
     units: str
@@ -166,6 +178,12 @@ class HubPlan:
     holes: tuple[Hole, ...]
     spreaders: tuple[Spreader, ...]
     notes: tuple[str, ...] = field(default=())
+    marks: tuple[Mark, ...] = field(default=())
+
+    @property
+    def file_stem(self) -> str:
+        """The stem of the hub's solid files: ``plate`` for a plate hub, else ``hub``."""
+        return "plate" if self.body.style == "plate" else "hub"
 
     def hole(self, hole_id: str) -> Hole:
         for h in self.holes:

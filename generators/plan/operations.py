@@ -217,6 +217,8 @@ class _Machined(_Face):
             return "spreader socket"
         if h.kind == HoleKind.BORE:
             return "mast bore"
+        if h.kind == HoleKind.U_BOLT:
+            return "U-bolt leg clearance"
         if h.countersink is not None or h.counterbore is not None:
             return "screw clearance"
         return "plain hole"

@@ -109,8 +109,9 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     units = cfg.units
     hub = manifest.get("hub", {})
     body = plan.body
-    size = (f"{md.both(body.across_flats_mm)} across flats, {body.sides} sides" if body.style == "block"
-            else f"{md.both(body.diameter_mm)} diameter")
+    from generators.report import plate_md
+
+    size = plate_md.size_text(body, md)
     from generators.standards.materials import get_material
 
     mat = get_material(plan.material)
@@ -123,7 +124,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     rows = [
         ["mast", f"{plan.mast_designation}, OD {md.both(plan.mast_od_mm)}"],
         ["hub", f"{body.style}, {size}, {md.both(body.thickness_mm)} thick, {mat.name} ({plan.process})"],
-        ["bore", f"{md.both(plan.bore_mm)} through"],
+        plate_md.mast_row(d, md),
         ["spreaders", f"{sp.count} x {md.both(sp.diameter)} poles at {sp.elevation:g} deg elevation,"
                       f" first at {sp.first_azimuth:g} deg azimuth"],
     ]
@@ -153,11 +154,12 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
                "Print the hub bottom face down as modelled; then per face, in this order (sizes in "
                + ("inches" if units == "in" else "millimetres") + "; check the designed sizes with a caliper).", "")
     else:
+        order = ("every U-bolt hole straight through from the top face" if d.plate is not None else
+                 "the bore first, then the sockets, then the holes that break into them")
         md.add("## Drill schedule", "",
                "Mark every hole from the 1:1 templates (or the positions below: u to the right and v up"
-               " looking at the face from outside), then work in this order: the bore first, then the"
-               " sockets, then the holes that break into them. Step numbers are those of each face's"
-               " template. Sizes in " + ("inches" if units == "in" else "millimetres") + ".", "")
+               f" looking at the face from outside), then work in this order: {order}. Step numbers are"
+               " those of each face's template. Sizes in " + ("inches" if units == "in" else "millimetres") + ".", "")
     templates = {t.get("face"): t.get("file") for t in (manifest.get("templates") or []) if isinstance(t, dict)}
     for k, (stage, face_id, ops) in enumerate(schedule_sections(d)):
         md.add(f"### {k + 1}. {_face_name(plan, face_id)}: {STAGE_NAMES[stage]}", "")
@@ -170,7 +172,15 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
             md.table(["hole", "kind", "u", "v", "diameter", "thread", "note"], _positions(holes, plan, md))
 
     md.add("## Fasteners", "")
-    md.table(["qty", "item", "size", "notes"], fastener_rows(cfg, plan, checks, md))
+    rows = fastener_rows(cfg, plan, checks, md)
+    if d.plate is not None:
+        rows = plate_md.u_bolt_rows(d, md) + rows
+    md.table(["qty", "item", "size", "notes"], rows)
+    if d.plate is not None:
+        md.add("## Assembly", "")
+        for line in plate_md.assembly_lines(d, md):
+            md.add(f"- {line}")
+        md.add("")
 
     cut = manifest.get("cutlist")
     md.add("## Spreader cut list", "")
@@ -223,7 +233,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     md.table(["rule", "status", "figure", "limit", "finding / what to change", "source"], rows)
 
     md.add("## Wind-load estimate", "")
-    wind_section(md, cfg, checks)
+    (plate_md.wind_section if d.plate is not None else wind_section)(md, cfg, checks)
 
     md.add("## Cautions", "")
     for c in CAUTIONS:

@@ -13,7 +13,10 @@ def summary_lines(result) -> list[str]:
     units = m["units_in_config"]
     hub = m["hub"]
     size = (f"{format_both(hub['across_flats_mm'], units)} across flats, {hub['sides']} sides"
-            if hub["style"] == "block" else f"{format_both(hub['diameter_mm'], units)} diameter")
+            if "across_flats_mm" in hub else f"{format_both(hub['diameter_mm'], units)} diameter")
+    plate = m.get("plate")
+    held = (f"two U-bolts {format_both(plate['mast_u_bolt_spacing_mm'], units)} apart through the plate"
+            if plate else f"bore {format_both(hub['bore_mm'], units)}")
     sockets = [h for h in m["holes"] if h["kind"] == "socket"]
     counts: dict[str, int] = {}
     for h in m["holes"]:
@@ -21,9 +24,11 @@ def summary_lines(result) -> list[str]:
     lines = [
         f"built {m['name']}: {hub['style']} hub, {size}, {format_both(hub['thickness_mm'], units)} thick",
         f"  mast   {m['mast']['designation']} -> OD {format_both(m['mast']['od_mm'], units)};"
-        f" bore {format_both(hub['bore_mm'], units)}",
+        f" {held}",
         f"  sockets {len(sockets)} x {format_both(sockets[0]['diameter_mm'], units)}"
-        f" at {m['spreaders'][0]['elevation_deg']:g} deg elevation" if sockets else "  no sockets",
+        f" at {m['spreaders'][0]['elevation_deg']:g} deg elevation" if sockets else
+        f"  poles  {len(m['spreaders'])} x {format_both(m['spreaders'][0]['diameter_mm'], units)} flat on the plate,"
+        " two U-bolts each" if plate else "  no sockets",
         "  holes  " + ", ".join(f"{n} {k}" for k, n in counts.items()),
     ]
     if "mass_g" in hub:

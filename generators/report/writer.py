@@ -36,7 +36,7 @@ def _labels(plan) -> dict[str, tuple]:
 def write_report(ctx) -> None:
     plan = ctx.plan
     preview = None
-    stl = ctx.folder / "hub.stl"
+    stl = ctx.folder / f"{plan.file_stem}.stl"
     if stl.is_file():
         from generators.report.preview import render_preview
 

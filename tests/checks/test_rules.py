@@ -48,12 +48,15 @@ def test_thin_wall_fails_with_a_suggestion():
 
 
 def test_socket_web_between_neighbours():
-    # 23.5 mm sockets ending at the 51 mm bore, 60 deg apart: the chord between axes at the
-    # bore is 51 sin 30 = 25.5 mm (plane geometry), less 23.5 = 2 mm of web
+    # 23.5 mm sockets (r = 11.75) running into the 51 mm bore (R = 25.5), 60 deg apart, level:
+    # the nearest material is where each socket's side meets the bore circle, at asin(r/R)
+    # either side of its axis, so the web is the chord 2 R sin(30 deg - asin(r/R)) = 2.28 mm
+    # (plane geometry), less than the 2 mm the chord between the axes less the diameter gives
     _, _, checks = checks_for(modified(spreaders={"diameter": 23}))
     r = rule(checks, "socket-web")
     assert r.status == "fail"
-    assert r.value == pytest.approx(2 * 25.5 * math.sin(math.radians(30)) - 23.5, abs=0.05)
+    expected = 2 * 25.5 * math.sin(math.radians(30) - math.asin(11.75 / 25.5))
+    assert r.value == pytest.approx(expected, abs=0.02)
 
 
 def test_blind_socket_close_to_the_bore():
