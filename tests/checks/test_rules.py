@@ -51,7 +51,7 @@ def test_socket_web_between_neighbours():
     # 23.5 mm sockets (r = 11.75) running into the 51 mm bore (R = 25.5), 60 deg apart, level:
     # the nearest material is where each socket's side meets the bore circle, at asin(r/R)
     # either side of its axis, so the web is the chord 2 R sin(30 deg - asin(r/R)) = 2.28 mm
-    # (plane geometry), less than the 2 mm the chord between the axes less the diameter gives
+    # (plane geometry; the chord between the axes less the diameter, 2 mm, understates it)
     _, _, checks = checks_for(modified(spreaders={"diameter": 23}))
     r = rule(checks, "socket-web")
     assert r.status == "fail"
