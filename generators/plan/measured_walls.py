@@ -178,9 +178,7 @@ def _exposed(c: Cutter, i: int, cutters: list[Cutter], body: _Body, step: float,
     """Surface points of cutter ``i`` that are a surface of the part (optionally only
     within ``near = (point, radius)``)."""
     partners = [o for j, o in enumerate(cutters) if j != i and meets_by_design(c.hole, o.hole)]
-    pts = c.surface(step, near)
-    if partners:
-        pts = np.concatenate([pts, _rims(c, partners, step, near)])
+    pts = np.concatenate([c.surface(step, near), _rims(c, partners, body, step, near)])
     pts = pts[body.inside(pts)]
     for o in partners:
         if len(pts):
@@ -188,17 +186,27 @@ def _exposed(c: Cutter, i: int, cutters: list[Cutter], body: _Body, step: float,
     return pts
 
 
-def _rims(c: Cutter, partners: list[Cutter], step: float, near) -> np.ndarray:
-    """Points on the rim where a cut runs into a cut it meets by design (a socket into the
-    bore), found exactly by bisection along the lines of its side: the least wall to such a
-    cut is often on that rim, which surface samples only come near."""
+def _exposure(pts: np.ndarray, partners: list[Cutter], body: _Body) -> np.ndarray:
+    """Positive where a point of a cut's surface is a surface of the part: inside the body and
+    outside every cut it meets by design."""
+    g = np.min(np.stack([body.face_distance(f, pts) for f in body.faces]), axis=0)
+    for o in partners:
+        g = np.minimum(g, o.sdf(pts))
+    return g
+
+
+def _rims(c: Cutter, partners: list[Cutter], body: _Body, step: float, near) -> np.ndarray:
+    """Points on the rims where a cut's side leaves the part: where it runs into a cut it
+    meets by design (a socket into the bore) or out through a face (a tilted socket's mouth
+    on a round rim), found exactly by bisection along the lines of its side. The least wall is
+    often on such a rim, which surface samples only come near."""
     got = c.lines(step, near)
     if got is None or len(got[0]) == 0:
         return np.empty((0, 3))
     starts, a, length = got
     ts = np.linspace(0.0, length, max(2, int(math.ceil(length / step)) + 1))
     pts = starts[:, None, :] + ts[None, :, None] * a  # (lines, levels, 3)
-    g = np.min(np.stack([o.sdf(pts.reshape(-1, 3)) for o in partners]), axis=0).reshape(pts.shape[:2])
+    g = _exposure(pts.reshape(-1, 3), partners, body).reshape(pts.shape[:2])
     li, ki = np.nonzero((g[:, :-1] >= 0) != (g[:, 1:] >= 0))
     if len(li) == 0:
         return np.empty((0, 3))
@@ -207,7 +215,7 @@ def _rims(c: Cutter, partners: list[Cutter], step: float, near) -> np.ndarray:
     for _ in range(24):  # to well under a micron
         mid = (lo + hi) / 2
         p = starts[li] + mid[:, None] * a
-        g_mid = np.min(np.stack([o.sdf(p) for o in partners]), axis=0) >= 0
+        g_mid = _exposure(p, partners, body) >= 0
         same = g_mid == g_lo
         lo, hi = np.where(same, mid, lo), np.where(same, hi, mid)
     t = np.where(g_lo, lo, hi)  # the outside end: on the exposed side of the rim
