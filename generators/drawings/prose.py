@@ -50,6 +50,17 @@ class SheetProse:
             return d + (f" into {sock}" if sock else "")
         return d
 
+    def _tap_text(self, h: Hole) -> str:
+        """The thread, and where it runs when the hole is not threaded from its entry."""
+        run = h.tapped
+        if not h.thread:
+            return "-"
+        if run is None or run.start_mm <= 0:
+            return h.thread
+        u = self.units
+        return (f"{h.thread} {coord(run.start_mm, u)}-{coord(run.end_mm, u)} deep,"
+                f" clear {coord(run.clear_mm, u)} to {coord(run.start_mm, u)}")
+
     def _drill_text(self, h: Hole) -> str:
         if h.drill:
             return drill_label(h.drill, h.diameter_mm, self.units)
@@ -69,7 +80,7 @@ class SheetProse:
                 cs = "-"
             t = tilts.get(h.id)
             axis = "square" if t is None else f"tilt {t.deg:.1f} deg"
-            rows.append((h.id, coord(x, u), coord(y, u), self._drill_text(h), self._depth(h), h.thread or "-", cs,
+            rows.append((h.id, coord(x, u), coord(y, u), self._drill_text(h), self._depth(h), self._tap_text(h), cs,
                          axis))
         return rows
 
