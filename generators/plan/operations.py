@@ -242,8 +242,8 @@ class _Machined(_Face):
         for (thread, depth, through, pct, start), hs in taps.items():
             blind = not through and all(h.kind == HoleKind.EXTRA for h in hs)
             notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
-                     f"thread only the last {self.L(depth - start)}, from {self.L(start)} to"
-                     f" {self.L(depth)} in; reach it through the clearance hole (a long-shank tap or a tap"
+                     f"thread only the last {self.L(depth - start)} ({self.L(start)} to {self.L(depth)} from"
+                     " the face), reaching it through the clearance hole (a long-shank tap or a tap"
                      " extension where a hand tap is too short)" if start > 0 else "",
                      "tap straight, back off every turn to break the chip"]
             self.add("tap", hs, f"{thread} tap", None, depth, through, STAGE_HOLES, None,

@@ -93,9 +93,9 @@ def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end
     full = cap_screw_thread_mm(thread, length) < need - 1e-9
     designation = _designation(thread, length, units) + (" fully threaded" if full else "")
     head = (f"the head stands {fmt(length - wall_mm - gap_mm)} to {fmt(length - wall_mm)} proud of the face"
-            if cbore == 0 else f"the head goes down a counterbore {fmt(cbore)} deep")
+            if cbore == 0 else "the head goes down the counterbore")
     note = (f"its point passes the bore wall by {fmt(reach - wall_mm)} with the head down, so it bites"
-            f" the mast first; {head}; {fmt(end_mm - start_mm)} of thread from {fmt(start_mm)} in;"
+            f" the mast first; {head}; thread {fmt(start_mm)} to {fmt(end_mm)} from the face;"
             " tighten with the hex key until it bites, then a quarter turn (common practice)")
     return Screw(designation=designation, kind="cap screw", thread=thread, length_mm=length,
                  standard=CAP_SCREW_STD, note=note), cbore
