@@ -20,3 +20,8 @@ def test_shortest_series_that_reaches():
     assert series_reaching(5.2, 40.0) == "jobber"
     assert series_reaching(5.2, 80.0) == "long"  # past 52 mm of jobber flutes, within 87 mm
     assert series_reaching(5.2, 96.5) is None  # a 3.8 in hole: no twist-drill series of these reaches
+
+
+@pytest.mark.parametrize("d,flute", [(2.5, 30), (3.2, 36), (3.5, 39)])
+def test_small_jobber_flute_lengths_din_338(d, flute):
+    assert flute_length_mm(d, "jobber") == flute  # DIN 338 (from memory)
