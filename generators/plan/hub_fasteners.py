@@ -135,15 +135,15 @@ class FastenerHoles:
             out = []
             for az in mc.azimuths:
                 face = next((f for a, f in free.items() if _apart(a, az) < 1e-6), None)
+                on_socket = [i for i in range(self.N) if _apart(az, sockets_az[i]) < 1e-6]
+                if on_socket:
+                    raise UserError("mast_clamp.azimuths", f"{az:g} deg runs down socket S{on_socket[0] + 1}",
+                                    "an azimuth between sockets")
                 if self.body.style == "block" and face is None:
                     near = ", ".join(f"{a:g}" for a in sorted(free)) or "none"
                     raise UserError("mast_clamp.azimuths", f"{az:g} deg has no flat or chamfer between sockets"
                                     " for a clamp hole", f"azimuths of the flats or chamfers between sockets:"
                                     f" {near} deg")
-                if self.body.style == "puck" and min(_apart(az, s) for s in sockets_az) < 1e-6:
-                    raise UserError("mast_clamp.azimuths", f"{az:g} deg runs down socket"
-                                    f" S{1 + min(range(self.N), key=lambda i: _apart(az, sockets_az[i]))}",
-                                    "an azimuth between sockets")
                 out.append((az, face))
         else:
             if not free:
