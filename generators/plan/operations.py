@@ -206,6 +206,16 @@ class _Machined(_Face):
                 " (aircraft) drill of 150 mm / 6 in or longer (from memory: common extra lengths), with"
                 " frequent pecking")
 
+    def tap_reach(self, thread: str, depth_mm: float) -> str:
+        """What a thread this deep needs beyond a hand tap (DIN 371 / ASME B94.9, from memory)."""
+        from generators.standards.drill_lengths import hand_tap_reach_mm
+
+        reach = hand_tap_reach_mm(thread)
+        if reach is None or depth_mm <= reach + 1e-9:
+            return ""
+        return (f"{self.L(depth_mm)} is past a hand tap's reach of about {self.L(reach)} (its length"
+                " less the square in the wrench): a tap extension or a long-shank (pulley) tap")
+
     def _depth_key(self, h: Hole) -> tuple:
         tilt = hole_tilt_deg(self.plan, h)
         return (None if h.through else round(h.depth_mm, 4), h.through, round(tilt, 2) if tilt > 0 else None)
@@ -243,8 +253,8 @@ class _Machined(_Face):
             blind = not through and all(h.kind == HoleKind.EXTRA for h in hs)
             notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
                      f"thread only the last {self.L(depth - start)} ({self.L(start)} to {self.L(depth)} from"
-                     " the face), reaching it through the clearance hole (a long-shank tap or a tap"
-                     " extension where a hand tap is too short)" if start > 0 else "",
+                     " the face), through the clearance hole" if start > 0 else "",
+                     self.tap_reach(thread, depth if not through else max(h.depth_mm for h in hs)),
                      "tap straight, back off every turn to break the chip"]
             self.add("tap", hs, f"{thread} tap", None, depth, through, STAGE_HOLES, None,
                      "; ".join(x for x in notes if x))

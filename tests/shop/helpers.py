@@ -21,6 +21,11 @@ DIN338_FLUTE = [(2.65, 3.0, 33), (3.0, 3.35, 36), (3.35, 3.75, 39), (3.75, 4.25,
                 (4.75, 5.3, 52), (5.3, 6.0, 57), (6.0, 6.7, 63), (6.7, 7.5, 69), (7.5, 8.5, 75),
                 (8.5, 9.5, 81), (9.5, 10.6, 87), (10.6, 11.8, 94), (11.8, 13.2, 101), (13.2, 14.0, 108)]
 
+# Hand tap overall lengths, mm (from memory: DIN 371 metric, ASME B94.9 inch); the wrench
+# holds about 12 mm of the square (common practice).
+HAND_TAP_OVERALL = {"M5": 70.0, "M6": 80.0, "#10": 2.375 * 25.4, "1/4": 2.5 * 25.4}
+WRENCH_GRIP_MM = 12.0
+
 # Socket head cap screw lengths (from memory: ISO 4762 preferred lengths; ASME B18.3 inch
 # lengths as commonly stocked).
 ISO4762_LENGTHS = {5, 6, 8, 10, 12, 16, 20, 25, 30, 35, 40, 45, 50, 55, 60, 65, 70, 80, 90, 100, 110, 120}

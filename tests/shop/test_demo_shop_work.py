@@ -11,7 +11,7 @@ import pytest
 from generators.config import load_config
 from generators.design import design
 
-from .helpers import (DEMOS, ENGAGE_D, IN, INCH_CAP_LENGTHS, ISO4762_LENGTHS, LEAD_PITCHES, jobber_flute_mm,
+from .helpers import (DEMOS, ENGAGE_D, HAND_TAP_OVERALL, IN, WRENCH_GRIP_MM, INCH_CAP_LENGTHS, ISO4762_LENGTHS, LEAD_PITCHES, jobber_flute_mm,
                       thread_d_p)
 
 _CACHE: dict = {}
@@ -88,6 +88,17 @@ def test_no_drill_past_jobber_reach_without_a_longer_series_named(path):
             f"{op.face} step {op.step}: {op.tool} {depth:.1f} mm deep, jobber flute {flute} mm: {op.note}"
     if path.stem == "four-spreader-conduit":
         assert checked, "the 3.8 in clamp holes are past a jobber drill"
+
+
+@pytest.mark.parametrize("path", MACHINED, ids=lambda p: p.stem)
+def test_no_tap_past_a_hand_tap_without_an_extension_named(path):
+    d = _design(path)
+    for op in (op for op in d.operations if op.operation == "tap"):
+        size = op.tool.split()[0].split("-")[0].split("x")[0]
+        overall = HAND_TAP_OVERALL.get(size)
+        depth = max(d.plan.hole(h).depth_mm for h in op.holes) if op.through else op.depth_mm
+        if overall is not None and depth > overall - WRENCH_GRIP_MM:
+            assert "tap extension" in op.note, f"{op.face} step {op.step}: {op.tool} {depth:.1f} mm deep"
 
 
 CLAMPED = [p for p in DEMOS if load_config(p).mast_clamp is not None]
