@@ -66,33 +66,43 @@ def test_printed_report_has_no_machining_steps(built):
 
 
 def test_nut_slot_is_placed_where_it_leaves_its_face(built):
-    """The slot's exit lies on its face (plane distance 0) and the report gives it there."""
-    from generators.plan.model import Face
-
+    """Hand calculation: the exit is the nut's centre moved along the slot until it meets the
+    face plane (top z = T; a flat at the apothem, a chamfer at Rc - c/2 tan(pi/n) along its
+    normal); the report's u, v are that point in the face frame (u to the right seen from
+    outside, v up), not the screw axis."""
     cfg, folder, m = built("six-spreader-printed")
     report = (folder / "report.md").read_text()
-    T = cfg.hub.thickness
+    hub, sp = cfg.hub, cfg.spreaders
+    T, n = hub.thickness, hub.sides or sp.count
+    apothem = hub.across_flats / 2
+    Rc = apothem / math.cos(math.pi / n)
     pockets = [h for h in m["holes"] if h["kind"] == "nut_pocket"]
     assert pockets
-    moved = 0
+    off_axis = 0
     for h in pockets:
-        p = np.array(h["slot_exit_mm"])
-        c = np.array(h["center_mm"])
-        s = np.array(h["slot_dir"])
-        # hand calculation: the exit is the centre moved along the slot to the face
-        if h["face"] == "top":
-            assert p[2] == pytest.approx(T, abs=1e-6)
-            t = (T - c[2]) / s[2]
-            assert p == pytest.approx(c + t * s, abs=1e-6)
-        elif h["face"] == "bottom":
-            assert p[2] == pytest.approx(0.0, abs=1e-6)
+        c, s, p = (np.array(h[k]) for k in ("center_mm", "slot_dir", "slot_exit_mm"))
+        kind, _, k = h["face"].partition("-")
+        if kind == "top":
+            normal, dist, u_ax, v_ax = np.array([0, 0, 1.0]), T, np.array([1.0, 0, 0]), np.array([0, 1.0, 0])
+        elif kind in ("flat", "chamfer"):
+            az = math.radians(sp.first_azimuth + (int(k) - (1 if kind == "flat" else 0.5)) * 360 / n)
+            normal = np.array([math.cos(az), math.sin(az), 0.0])
+            dist = apothem if kind == "flat" else Rc - hub.corner_chamfer / 2 * math.tan(math.pi / n)
+            u_ax, v_ax = np.array([-math.sin(az), math.cos(az), 0.0]), np.array([0, 0, 1.0])
+        else:
+            pytest.fail(f"unexpected slot face {h['face']}")
+        t = (dist - c @ normal) / (s @ normal)
+        assert p == pytest.approx(c + t * s, abs=1e-4), h["id"]
         row = next(line for line in report.splitlines() if line.startswith(f"| {h['id']} |"))
-        u = float(re.findall(r"-?\d+\.?\d*", row.split("|")[3])[0])
-        entry_u = h["entry_mm"]
-        if abs(u - (entry_u[0] if h["face"] in ("top", "bottom") else 0.0)) > 0.5:
-            moved += 1
-    assert moved or all(h["face"] not in ("top", "bottom") for h in pockets)
-    assert Face  # the report's frame is the plan's face frame
+        cells = [x.strip() for x in row.split("|")]
+        u, v = (float(cells[i].split()[0]) for i in (3, 4))
+        want_u, want_v = (p - dist * normal) @ u_ax, (p - dist * normal) @ v_ax
+        if kind == "flat" or kind == "chamfer":
+            want_v = p[2]
+        assert (u, v) == (pytest.approx(want_u, abs=0.01), pytest.approx(want_v, abs=0.01)), h["id"]
+        axis_u = (np.array(h["entry_mm"]) - dist * normal) @ u_ax
+        off_axis += abs(want_u - axis_u) > 0.5
+    assert off_axis, "some slot leaves its face away from the screw axis"
 
 
 def test_sleeve_rim_strip_is_pi_times_the_drilled_diameter(built):
