@@ -41,8 +41,35 @@ def hole_record(h: Hole) -> dict[str, Any]:
         "spreader": h.spreader,
         "note": h.note,
         **({"point_deg": h.point_deg} if h.point_deg is not None else {}),
+        **_thread_fields(h),
         **_print_fields(h),
     }
+
+
+def _thread_fields(h: Hole) -> dict[str, Any]:
+    """Where a tapped hole is threaded and the clearance before it, when the plan says."""
+    run = h.tapped
+    if run is None:
+        return {}
+    out: dict[str, Any] = {"thread_start_mm": _r(run.start_mm), "thread_length_mm": _r(run.length_mm)}
+    if run.clear_mm is not None:
+        out["clearance"] = {"diameter_mm": _r(run.clear_mm), "drill": run.clear_drill,
+                            "depth_mm": _r(run.start_mm)}
+    return out
+
+
+def fastener_records(plan: HubPlan) -> list[dict[str, Any]]:
+    """Every screw the plan chose: set screws, clamp screws and screws into tapped holes."""
+    out = []
+    for h in plan.holes:
+        if h.screw is None:
+            continue
+        s = h.screw
+        out.append({"hole": h.id, "designation": s.designation, "kind": s.kind, "thread": s.thread,
+                    "length_mm": None if s.length_mm is None else _r(s.length_mm),
+                    "counterbore_depth_mm": None if h.counterbore is None else _r(h.counterbore.depth_mm),
+                    "standard": s.standard, "note": s.note})
+    return out
 
 
 def _print_fields(h: Hole) -> dict[str, Any]:
@@ -60,6 +87,8 @@ def _print_fields(h: Hole) -> dict[str, Any]:
         out["slot_dir"] = [_r(c, 9) for c in h.slot_dir]
         out["slot_length_mm"] = _r(h.slot_length_mm)
         out["center_mm"] = [_r(c) for c in h.point_at(h.depth_mm / 2)]
+    if h.slot_exit_mm is not None:
+        out["slot_exit_mm"] = [_r(c) for c in h.slot_exit_mm]
     for key in ("serves", "nut", "insert"):
         if getattr(h, key) is not None:
             out[key] = getattr(h, key)
@@ -103,6 +132,7 @@ def plan_record(plan: HubPlan, volume_mm3: float | None = None) -> dict[str, Any
         "mast": {"designation": plan.mast_designation, "od_mm": _r(plan.mast_od_mm)},
         "hub": hub,
         "holes": [hole_record(h) for h in plan.holes],
+        "fasteners": fastener_records(plan),
         "spreaders": [
             {"id": s.id, "azimuth_deg": _r(s.azimuth_deg % 360), "elevation_deg": _r(s.elevation_deg),
              "socket_hole": s.socket_hole, "diameter_mm": _r(s.diameter_mm),

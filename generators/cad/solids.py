@@ -23,7 +23,8 @@ def body_solid(body: Body) -> cq.Solid:
 
 
 def hole_cutters(hole: Hole) -> list[cq.Solid]:
-    """Cutter solids for one hole: the drilled cylinder plus countersink or counterbore."""
+    """Cutter solids for one hole: the drilled cylinder plus the clearance before its thread,
+    countersink or counterbore."""
     axis = _vec(hole.axis).normalized()
     entry = _vec(hole.entry_mm)
     start = entry - axis * hole.lead_mm
@@ -43,6 +44,10 @@ def hole_cutters(hole: Hole) -> list[cq.Solid]:
         depth = (cs.diameter_mm / 2 - hole.radius_mm) / math.tan(half)
         r_top = cs.diameter_mm / 2 + hole.lead_mm * math.tan(half)
         cutters.append(cq.Solid.makeCone(r_top, hole.radius_mm, hole.lead_mm + depth, start, axis))
+    run = hole.tapped
+    if run is not None and run.clear_mm is not None and run.start_mm > 0:
+        # the unthreaded part before the thread, opened to the screw's clearance
+        cutters.append(cq.Solid.makeCylinder(run.clear_mm / 2, hole.lead_mm + run.start_mm, start, axis))
     if hole.counterbore is not None:
         cb = hole.counterbore
         cutters.append(cq.Solid.makeCylinder(cb.diameter_mm / 2, hole.lead_mm + cb.depth_mm, start, axis))

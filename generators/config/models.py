@@ -155,6 +155,21 @@ class MastClamp(Section):
     thread: ThreadSpec
     count: Annotated[int, Field(ge=1, le=12)] = 1
     height: Annotated[Length, Field(ge=0)] | None = None  # clamp axis above the bottom face; default mid-thickness
+    # azimuths of the clamp holes; default: 90 deg apart for two, 120 deg for three
+    # (generators/plan/clamp_places.py); count defaults to how many are given
+    azimuths: tuple[Azimuth, ...] | None = None
+
+    @model_validator(mode="before")
+    @classmethod
+    def _count_from_azimuths(cls, data):
+        if isinstance(data, dict) and isinstance(data.get("azimuths"), (list, tuple)):
+            n = len(data["azimuths"])
+            if "count" not in data:
+                data = {**data, "count": n}
+            elif data["count"] != n:
+                raise ValueError(f"azimuths: {n} azimuths given for count = {data['count']}"
+                                 " (give as many azimuths as clamp screws, or leave count out)")
+        return data
 
 
 class ExtraHole(Section):

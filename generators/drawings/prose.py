@@ -50,6 +50,15 @@ class SheetProse:
             return d + (f" into {sock}" if sock else "")
         return d
 
+    def _run_text(self, h: Hole) -> str:
+        """Where a thread runs when it does not start at the entry, and the clearance before it."""
+        run = h.tapped
+        if not h.thread or run is None or run.start_mm <= 0:
+            return ""
+        u = self.units
+        return (f"thread {coord(run.start_mm, u)}-{coord(run.end_mm, u)},"
+                f" clear {coord(run.clear_mm, u)} x {coord(run.start_mm, u)}")
+
     def _drill_text(self, h: Hole) -> str:
         if h.drill:
             return drill_label(h.drill, h.diameter_mm, self.units)
@@ -69,6 +78,8 @@ class SheetProse:
                 cs = "-"
             t = tilts.get(h.id)
             axis = "square" if t is None else f"tilt {t.deg:.1f} deg"
+            run = self._run_text(h)
+            cs = run if cs == "-" and run else "; ".join(x for x in (cs, run) if x)
             rows.append((h.id, coord(x, u), coord(y, u), self._drill_text(h), self._depth(h), h.thread or "-", cs,
                          axis))
         return rows

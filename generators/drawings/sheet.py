@@ -190,6 +190,9 @@ class _SheetBuilder(SheetProse):
         if h.counterbore is not None:
             self.items.append(Circle(CSK_CBORE, (u, v), h.counterbore.diameter_mm / 2))
             outer = max(outer, h.counterbore.diameter_mm / 2)
+        if h.tapped is not None and h.tapped.clear_mm is not None:  # the clearance before the thread
+            self.items.append(Circle(CSK_CBORE, (u, v), h.tapped.clear_mm / 2))
+            outer = max(outer, h.tapped.clear_mm / 2)
         d = outer * math.sqrt(0.5) + 0.6
         text = h.id
         if self.face.kind == "rim":

@@ -58,8 +58,8 @@ class Cutter:
             # the closed section mirrored about the axis, for exact distances on both sides
             self.section = np.concatenate([self.half, self.half[::-1] * np.array([-1.0, 1.0])])
             self.t0, self.t1, self.revolved = t0, self.half[:, 1].max(), True
-            self.plain = (hole.countersink is None and hole.counterbore is None
-                          and hole.point_deg is None)  # a plain cylinder: closed form
+            self.plain = (hole.countersink is None and hole.counterbore is None and hole.point_deg is None
+                          and len(self.half) <= 5)  # a plain cylinder: closed form
 
     def _local(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         d = pts - self.E
@@ -154,21 +154,44 @@ class Cutter:
 
 
 def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
-    """(radius, depth) from the axis at the start, out, down the side and back to the axis."""
+    """(radius, depth) from the axis at the start, out, down the side and back to the axis:
+    the widest of the drilled hole, its countersink cone, its counterbore and the clearance
+    before its thread at every depth, then the drill point."""
     r = h.radius_mm
-    pts = [(0.0, t0)]
+    pieces = [(t0, t1, r, r)]  # (from, to, radius at from, radius at to)
     if h.countersink is not None:
         half = math.radians(h.countersink.angle_deg / 2)
         R = h.countersink.diameter_mm / 2
-        pts += [(R + h.lead_mm * math.tan(half), t0), (R, 0.0), (r, (R - r) / math.tan(half))]
-    elif h.counterbore is not None:
-        R, d = h.counterbore.diameter_mm / 2, h.counterbore.depth_mm
-        pts += [(R, t0), (R, d), (r, d)]
-    else:
-        pts.append((r, t0))
-    if 0.0 < h.depth_mm < t1 - 1e-9 and pts[-1][1] < h.depth_mm:
-        pts.append((r, h.depth_mm))  # where a through hole leaves the far face: sampled exactly
-    pts.append((r, t1))
+        pieces.append((t0, (R - r) / math.tan(half), R + h.lead_mm * math.tan(half), r))
+    if h.counterbore is not None:
+        R = h.counterbore.diameter_mm / 2
+        pieces.append((t0, h.counterbore.depth_mm, R, R))
+    run = h.tapped
+    if run is not None and run.clear_mm is not None and run.start_mm > 0:
+        pieces.append((t0, run.start_mm, run.clear_mm / 2, run.clear_mm / 2))
+    cuts = {t0, t1, 0.0, h.depth_mm} | {p[1] for p in pieces}
+    for a in pieces:  # where two pieces cross inside an interval
+        for b in pieces:
+            ka, kb = (a[3] - a[2]) / (a[1] - a[0]), (b[3] - b[2]) / (b[1] - b[0])
+            if abs(ka - kb) > 1e-12:
+                t = (b[2] - kb * b[0] - a[2] + ka * a[0]) / (ka - kb)
+                cuts.add(t)
+    ts = sorted(t for t in cuts if t0 - 1e-12 <= t <= t1 + 1e-12)
+
+    def radius(t: float, after: bool) -> float:
+        out = 0.0
+        for a, b, ra, rb in pieces:
+            if (a - 1e-9 <= t < b - 1e-9) if after else (a + 1e-9 < t <= b + 1e-9):
+                out = max(out, ra + (rb - ra) * (t - a) / (b - a))
+        return out
+
+    pts = [(0.0, t0)]
+    for k, t in enumerate(ts):
+        before = radius(t, after=False) if k else None
+        after = radius(t, after=True) if k < len(ts) - 1 else None
+        for rho in (before, after):
+            if rho is not None and (abs(rho - pts[-1][0]) > 1e-12 or abs(t - pts[-1][1]) > 1e-12):
+                pts.append((rho, t))
     pts.append((0.0, t1 + point_depth_mm(h)))
     return pts
 

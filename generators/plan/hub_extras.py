@@ -8,7 +8,8 @@ from generators.errors import UserError
 from generators.plan import limits as L
 from generators.plan.geometry import segment_distance
 from generators.plan.holes import clearance_drill, drill_name_for, tap_hole
-from generators.plan.model import Counterbore, Countersink, Hole
+from generators.plan.model import Counterbore, Countersink, Hole, ThreadRun
+from generators.plan.screws import tapped_extra_screw
 
 # A twist drill's point: 118 deg included angle, the general-purpose grind (ISO 5419 names
 # the point angle; 118 deg is the usual figure, from memory). A blind drilled hole ends in
@@ -79,9 +80,16 @@ class ExtraHoles:
                 if gap < L.MIN_WEB_MM:
                     raise UserError(f"{key}.at", f"hole {spec.id} runs into hole {other.id}",
                                     f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
+            run = screw = None
+            if thread is not None:
+                from generators.standards.engagement import tap_depth_mm
+
+                run = ThreadRun(0.0, depth if through else min(depth, tap_depth_mm(thread, self._mat_class())))
+                engaged = run.length_mm if through else max(run.length_mm - 2 * spec.thread.pitch_mm, 0.0)
+                screw = tapped_extra_screw(thread, engaged, self.fmt)
             out.append(Hole(id=spec.id, kind="extra", face=spec.face, entry_mm=entry, axis=axis,
                             diameter_mm=dia, depth_mm=depth, through=through, drill=drill, thread=thread,
-                            thread_percent=pct, countersink=cs, counterbore=cb,
+                            thread_percent=pct, countersink=cs, counterbore=cb, tapped=run, screw=screw,
                             extend_mm=L.CUT_OVERRUN_MM if through else 0.0, lead_mm=L.CUT_OVERRUN_MM,
                             point_deg=point))
         return out

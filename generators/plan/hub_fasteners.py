@@ -12,7 +12,8 @@ from generators.errors import UserError
 from generators.plan import limits as L
 from generators.plan.geometry import segment_distance
 from generators.plan.holes import tap_hole
-from generators.plan.model import Face, Hole
+from generators.plan.model import Counterbore, Face, Hole
+from generators.plan.screws import clamp_screw, set_screw, thread_run
 
 
 class FastenerHoles:
@@ -54,10 +55,16 @@ class FastenerHoles:
                                     "a position nearer the outer face")
                 self._clear_of_sockets("set_screws.thread", entry, axis, d, r_d, sockets, skip=sock.id,
                                        what=f"set screw {hid}")
+                cos_e = math.cos(math.radians(self.cfg.spreaders.elevation))
+                wall = d - self.r_s / cos_e  # face to the socket wall, along the screw
+                gap = d - (self.cfg.spreaders.diameter - self.r_s) / cos_e  # to the pole, pushed over
+                run = thread_run(wall, ss.thread, self._mat_class(), self._series_for(ss.thread))
+                screw = set_screw(ss.thread.designation, gap, run.start_mm, run.end_mm, ss.length,
+                                  self.units, self.fmt)
                 holes.append(Hole(id=hid, kind="set_screw", face=ss.face, entry_mm=entry, axis=axis,
                                   diameter_mm=tap.drill.diameter_mm, depth_mm=d, drill=tap.drill.name,
                                   thread=ss.thread.designation, thread_percent=tap.thread_percent,
-                                  spreader=sock.spreader, lead_mm=L.CUT_OVERRUN_MM,
+                                  spreader=sock.spreader, lead_mm=L.CUT_OVERRUN_MM, tapped=run, screw=screw,
                                   note=f"set screw for spreader {sock.spreader}"))
         return holes
 
@@ -76,7 +83,7 @@ class FastenerHoles:
         mc = self.cfg.mast_clamp
         if mc is None:
             return []
-        if mc.count > self.N:
+        if mc.count > self.N and self.body.style == "puck" and mc.azimuths is None:
             raise UserError("mast_clamp.count", f"{mc.count} clamp holes but only {self.N} gaps between sockets",
                             f"1 to {self.N}")
         tap = tap_hole(mc.thread, self._mat_class(), self._series_for(mc.thread))
@@ -86,27 +93,12 @@ class FastenerHoles:
             raise UserError("mast_clamp.height", f"{self.fmt(z)} puts the {tap.drill.name} clamp hole"
                             " through the top or bottom face", f"{self.fmt(r_c + L.MIN_EDGE_MM)} to"
                             f" {self.fmt(self.T - r_c - L.MIN_EDGE_MM)} above the bottom face")
-        gaps = [round(k * self.N / mc.count) for k in range(mc.count)]
-        first = self.cfg.spreaders.first_azimuth
         holes = []
-        for k, g in enumerate(gaps):
-            az = first + (g + 0.5) * 360 / self.N
-            if self.body.style == "puck":
+        for k, (az, face) in enumerate(self._clamp_places(r_c, tap.drill.name)):
+            if face is None:
                 r_e, face_id = self.body.outer_radius_mm, "rim"
                 lead = L.CUT_OVERRUN_MM + r_e - math.sqrt(r_e ** 2 - r_c ** 2)
             else:
-                face = self._face_at(az)
-                if face is None:
-                    need = self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)
-                    raise UserError("mast_clamp", "clamp holes sit between sockets, where this block has a"
-                                    " sharp corner", f"hub.sides = {2 * self.N} (a flat between sockets) or"
-                                    f" hub.corner_chamfer of at least {need}")
-                half_w = face.outline[1][0]
-                if half_w - r_c < L.MIN_EDGE_MM:
-                    raise UserError("hub.corner_chamfer" if face.kind == "chamfer" else "hub.across_flats",
-                                    f"the {face.id} face ({self.fmt(2 * half_w)} wide) is too narrow to"
-                                    f" drill the {tap.drill.name} clamp hole",
-                                    f"at least {self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)}")
                 r_e, face_id = math.hypot(face.origin[0], face.origin[1]), face.id
                 lead = L.CUT_OVERRUN_MM
             t = math.radians(az)
@@ -115,15 +107,74 @@ class FastenerHoles:
             depth = r_e - self.Rb
             extend = self.Rb - (math.sqrt(self.Rb ** 2 - r_c ** 2) - 0.2)
             hid = f"C{k + 1}"
-            self._clear_of_sockets("mast_clamp", entry, axis, depth, r_c, sockets, what=f"clamp hole {hid}")
+            key = "mast_clamp.azimuths" if mc.azimuths is not None else "mast_clamp"
+            self._clear_of_sockets(key, entry, axis, depth, r_c, sockets, what=f"clamp hole {hid}")
+            run = thread_run(depth, mc.thread, self._mat_class(), self._series_for(mc.thread))
+            screw, cb_depth = clamp_screw(mc.thread.designation, depth, self.bore - self.mast_od,
+                                          run.start_mm, run.end_mm, self.units, self.fmt)
+            cb = None
+            if cb_depth > 0:
+                from generators.standards.fasteners import counterbore
+
+                cb = Counterbore(diameter_mm=counterbore(mc.thread).diameter_mm, depth_mm=cb_depth)
             holes.append(Hole(id=hid, kind="clamp", face=face_id, entry_mm=entry, axis=axis,
                               diameter_mm=tap.drill.diameter_mm, depth_mm=depth, drill=tap.drill.name,
                               thread=mc.thread.designation, thread_percent=tap.thread_percent,
-                              extend_mm=extend, lead_mm=lead, note="mast clamp screw"))
+                              counterbore=cb, extend_mm=extend, lead_mm=lead, tapped=run, screw=screw,
+                              note="mast clamp screw"))
         return holes
 
-    def _face_at(self, az: float) -> Face | None:
-        for f in self.faces:
-            if f.kind in ("flat", "chamfer") and abs(((f.azimuth_deg - az + 180) % 360) - 180) < 1e-6:
-                return f
-        return None
+    def _clamp_places(self, r_c: float, drill: str) -> list[tuple[float, Face | None]]:
+        """(azimuth, face) of each clamp hole; the face is None on a puck's rim."""
+        from generators.plan.clamp_places import choose_azimuths
+
+        mc = self.cfg.mast_clamp
+        sockets_az = [self.cfg.spreaders.first_azimuth + i * 360 / self.N for i in range(self.N)]
+        if self.body.style == "puck":
+            free = {(self.cfg.spreaders.first_azimuth + (g + 0.5) * 360 / self.N) % 360: None
+                    for g in range(self.N)}
+        else:
+            free = {f.azimuth_deg % 360: f for f in self.faces if f.kind in ("flat", "chamfer")
+                    and all(_apart(f.azimuth_deg, s) > 1e-6 for s in sockets_az)}
+        if mc.azimuths is not None:
+            out = []
+            for az in mc.azimuths:
+                face = next((f for a, f in free.items() if _apart(a, az) < 1e-6), None)
+                on_socket = [i for i in range(self.N) if _apart(az, sockets_az[i]) < 1e-6]
+                if on_socket:
+                    raise UserError("mast_clamp.azimuths", f"{az:g} deg runs down socket S{on_socket[0] + 1}",
+                                    "an azimuth between sockets")
+                if self.body.style == "block" and face is None:
+                    near = ", ".join(f"{a:g}" for a in sorted(free)) or "none"
+                    raise UserError("mast_clamp.azimuths", f"{az:g} deg has no flat or chamfer between sockets"
+                                    " for a clamp hole", f"azimuths of the flats or chamfers between sockets:"
+                                    f" {near} deg")
+                out.append((az, face))
+        else:
+            if not free:
+                need = self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)
+                raise UserError("mast_clamp", "clamp holes sit between sockets, where this block has a"
+                                " sharp corner", f"hub.sides = {2 * self.N} (a flat between sockets) or"
+                                f" hub.corner_chamfer of at least {need}")
+            if mc.count > len(free):
+                raise UserError("mast_clamp.count", f"{mc.count} clamp holes but only {len(free)} flats or"
+                                " chamfers between sockets", f"1 to {len(free)}")
+            first = (self.cfg.spreaders.first_azimuth + 180 / self.N) % 360
+            chosen, note = choose_azimuths(sorted(free), mc.count, first)
+            if note:
+                self.notes.append(note)
+            out = [(az, free[az]) for az in chosen]
+        for az, face in out:
+            if face is not None:
+                half_w = face.outline[1][0]
+                if half_w - r_c < L.MIN_EDGE_MM:
+                    raise UserError("hub.corner_chamfer" if face.kind == "chamfer" else "hub.across_flats",
+                                    f"the {face.id} face ({self.fmt(2 * half_w)} wide) is too narrow to"
+                                    f" drill the {drill} clamp hole",
+                                    f"at least {self.fmt(2 * r_c + 2 * L.MIN_EDGE_MM)}")
+        return out
+
+
+def _apart(a: float, b: float) -> float:
+    """Angle between two azimuths, 0 to 180 deg."""
+    return abs(((a - b + 180) % 360) - 180)

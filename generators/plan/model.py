@@ -25,6 +25,37 @@ class Counterbore:
 
 
 @dataclass(frozen=True)
+class ThreadRun:
+    """Where a tapped hole is threaded: ``length_mm`` from ``start_mm`` along the axis.
+
+    Before ``start_mm`` (from the entry, or the counterbore floor) the hole is opened to
+    ``clear_mm`` with ``clear_drill`` so the screw passes freely; None when the thread
+    starts at the entry.
+    """
+
+    start_mm: float
+    length_mm: float
+    clear_mm: float | None = None
+    clear_drill: str | None = None
+
+    @property
+    def end_mm(self) -> float:
+        return self.start_mm + self.length_mm
+
+
+@dataclass(frozen=True)
+class Screw:
+    """The screw a hole takes, chosen once in the plan (generators/plan/screws.py)."""
+
+    designation: str  # e.g. "M6 x 12"
+    kind: str  # set screw | cap screw | screw
+    thread: str
+    length_mm: float | None  # None where it depends on what the screw holds
+    standard: str
+    note: str = ""  # how it sits and how to tighten it
+
+
+@dataclass(frozen=True)
 class Hole:
     """One drilled, bored or milled hole.
 
@@ -70,6 +101,9 @@ class Hole:
     # A blind drilled hole ends in the drill's point cone of this included angle (None: flat).
     point_deg: float | None = None
     u_bolt: str | None = None  # plate hubs: the U-bolt whose leg passes here (spreader set, or none: the mast)
+    slot_exit_mm: Vec | None = None  # a nut slot: where its centre line leaves the face
+    tapped: ThreadRun | None = None  # where a tapped hole is threaded (None: not tapped)
+    screw: Screw | None = None
 
     @property
     def radius_mm(self) -> float:

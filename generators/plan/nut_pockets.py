@@ -80,6 +80,7 @@ class PocketSearch:
                               depth_mm=height, lead_mm=0.0, thread=orig.thread, spreader=h.spreader,
                               profile="hex", across_flats_mm=flats, slot_dir=s,
                               slot_length_mm=L_ + L.CUT_OVERRUN_MM, serves=h.id,
+                              slot_exit_mm=tuple(C[i] + s[i] * L_ for i in range(3)),
                               nut=f"{orig.thread} hex nut, {nut.standard}"
                                   f" ({self.fmt(nut.across_flats_mm)} across flats, {self.fmt(nut.height_mm)} high)",
                               note=f"captive nut for {h.id}: slide it in from the {face} face")

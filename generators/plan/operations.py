@@ -10,7 +10,7 @@ nuts or press the inserts. The templates, the report's schedule and the manifest
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 
 from generators.plan.geometry import dot
 from generators.plan.kinds import POCKET_KINDS, HoleKind
@@ -206,6 +206,16 @@ class _Machined(_Face):
                 " (aircraft) drill of 150 mm / 6 in or longer (from memory: common extra lengths), with"
                 " frequent pecking")
 
+    def tap_reach(self, thread: str, depth_mm: float) -> str:
+        """What a thread this deep needs beyond a hand tap (DIN 371 / ASME B94.9, from memory)."""
+        from generators.standards.drill_lengths import hand_tap_reach_mm
+
+        reach = hand_tap_reach_mm(thread)
+        if reach is None or depth_mm <= reach + 1e-9:
+            return ""
+        return (f"{self.L(depth_mm)} is past a hand tap's reach of about {self.L(reach)} (its length"
+                " less the square in the wrench): a tap extension or a long-shank (pulley) tap")
+
     def _depth_key(self, h: Hole) -> tuple:
         tilt = hole_tilt_deg(self.plan, h)
         return (None if h.through else round(h.depth_mm, 4), h.through, round(tilt, 2) if tilt > 0 else None)
@@ -224,15 +234,29 @@ class _Machined(_Face):
         return "plain hole"
 
     def _finish(self, holes: list[Hole]) -> None:
+        clears: dict[tuple, list[Hole]] = {}
+        for h in holes:
+            run = h.tapped
+            if h.thread and run is not None and run.clear_mm is not None and h.kind not in POCKET_KINDS:
+                clears.setdefault((run.clear_drill, round(run.clear_mm, 4), round(run.start_mm, 4),
+                                   self._depth_key(h)[2]), []).append(h)
+        for (drill, dia, depth, tilt), hs in clears.items():
+            note = "; ".join(x for x in (f"clearance for the {hs[0].thread} screw down to its thread",
+                                         self.reach(dia, replace(hs[0], depth_mm=depth, through=False))) if x)
+            self.add("drill", hs, drill_label(drill, dia, self.units), dia, depth, False, STAGE_HOLES, tilt, note)
         taps: dict[tuple, list[Hole]] = {}
         for h in holes:
             if h.thread and h.kind not in POCKET_KINDS:
-                depth = tap_depth_mm(h, self.mclass)
+                start = h.tapped.start_mm if h.tapped is not None else 0.0
+                depth = start + tap_depth_mm(h, self.mclass)
                 taps.setdefault((h.thread, None if h.through else round(depth, 4), h.through,
-                                 h.thread_percent), []).append(h)
-        for (thread, depth, through, pct), hs in taps.items():
+                                 h.thread_percent, round(start, 4)), []).append(h)
+        for (thread, depth, through, pct, start), hs in taps.items():
             blind = not through and all(h.kind == HoleKind.EXTRA for h in hs)
             notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
+                     f"thread only the last {self.L(depth - start)} ({self.L(start)} to {self.L(depth)} from"
+                     " the face), through the clearance hole" if start > 0 else "",
+                     self.tap_reach(thread, depth if not through else max(h.depth_mm for h in hs)),
                      "tap straight, back off every turn to break the chip"]
             self.add("tap", hs, f"{thread} tap", None, depth, through, STAGE_HOLES, None,
                      "; ".join(x for x in notes if x))
@@ -251,14 +275,16 @@ class _Machined(_Face):
 
 
 def tap_depth_mm(h: Hole, material_class: str) -> float:
-    """How deep a tapped hole is threaded.
+    """How long a tapped hole is threaded: the plan's thread run (``Hole.tapped``).
 
-    A blind extra hole needs only its engagement plus the tap's lead (1.5 D in metals, 2.5 D
-    in plastics and wood, 2 pitches of lead; generators.standards.engagement, common
-    practice), never more than it is drilled. Set-screw and clamp holes are threaded all the
-    way, because their screw is driven from this face to the pole or the mast."""
+    Set-screw and clamp holes are threaded only over their engagement plus the tap's lead,
+    ending at the socket or bore wall (generators/plan/screws.py); a blind extra hole over
+    its engagement plus lead (1.5 D metals, 2.5 D plastics and wood, 2 pitches of lead;
+    generators.standards.engagement, common practice), never more than it is drilled."""
     from generators.standards.engagement import tap_depth_mm as needed
 
+    if h.tapped is not None:
+        return h.tapped.length_mm
     if h.kind == HoleKind.EXTRA and not h.through:
         return min(h.depth_mm, needed(h.thread, material_class))
     return h.depth_mm

@@ -78,7 +78,7 @@ class _Printer(PocketSearch):
             if h.thread is not None:
                 target = clearance_hole(h.thread, "normal", key=self._key(h))
                 h = replace(h, diameter_mm=target + self.comp, drill=None, thread=None, thread_percent=None,
-                            compensation_mm=self.comp,
+                            compensation_mm=self.comp, tapped=None, screw=None,
                             note=(h.note + "; " if h.note else "") + f"clearance for {self._thread_of(h)}")
                 tapped.append(h)
             else:
@@ -103,6 +103,9 @@ class _Printer(PocketSearch):
         if pockets:
             what = "heat-set insert pockets" if self.inserts else "captive hex-nut pockets (slide the nut in from the side)"
             self.notes.append(f"printed: {len(pockets)} {what} replace the tapped holes")
+        from generators.plan.printed_screws import printed_screws
+
+        holes = printed_screws(self.plan, self.cfg, holes, pockets, self.fmt)
         return replace(self.plan, holes=tuple(holes + pockets), notes=self.plan.notes + tuple(self.notes))
 
     # ---- keys and names ----------------------------------------------------------------

@@ -111,25 +111,29 @@ def cutter_for(diameter_mm: float, drill_name: str | None, depth_mm: float, thro
     if under is not None and under.diameter_mm >= OPEN_UP_FRACTION * diameter_mm:
         tool = "a boring head or a reamer" if metal else "a reamer, step drill or boring head"
         return Cutter("open_up", under, tool, "no stock drill of that size")
-    return Cutter("cut", None, large_hole_tool(diameter_mm, depth_mm, through, material_class),
+    return Cutter("cut", None, large_hole_tool(diameter_mm, depth_mm, through, material_class, units),
                   "larger than the stock drills")
 
 
-def large_hole_tool(diameter_mm: float, depth_mm: float, through: bool, material_class: str) -> str:
+def large_hole_tool(diameter_mm: float, depth_mm: float, through: bool, material_class: str,
+                    units: str = "mm") -> str:
     """Words for the cutter of a hole larger than the stock drills.
 
     Aluminium and other metals: never a Forstner or spade bit (made for wood and plastics);
     a hole saw only through a wall it cuts in one pass; else an annular cutter where its
     depth and size reach, else a boring head on a mill or a lathe. Plastics and wood:
     Forstner bit (blind or through), hole saw through a wall it reaches."""
+    from generators.units import format_length
+
+    L = lambda mm: format_length(mm, units, fractions=False)  # noqa: E731
     if material_class == "metal":
         if through and depth_mm <= HOLE_SAW_DEPTH_MM:
-            return (f"a bi-metal hole saw (through {depth_mm:.0f} mm, within its about"
-                    f" {HOLE_SAW_DEPTH_MM:.0f} mm depth of cut), then a boring head to size;"
+            return (f"a bi-metal hole saw (through {L(depth_mm)}, within its about"
+                    f" {L(HOLE_SAW_DEPTH_MM)} depth of cut), then a boring head to size;"
                     " or a boring head on a mill or a lathe")
         if depth_mm <= ANNULAR_DEPTH_MM and diameter_mm <= ANNULAR_MAX_DIAMETER_MM:
             return ("an annular cutter in a mill or magnetic drill (to about"
-                    f" {ANNULAR_DEPTH_MM:.0f} mm deep), or a boring head on a mill or a lathe,"
+                    f" {L(ANNULAR_DEPTH_MM)} deep), or a boring head on a mill or a lathe,"
                     " after a pilot")
         return "a boring head on a mill, or a lathe, after a pilot drill; flat bottom" if not through \
             else "a boring head on a mill, or a lathe, after a pilot drill"

@@ -84,7 +84,9 @@ def _positions(holes: list[Hole], plan: HubPlan, md: _Md) -> list[list[str]]:
     rows = []
     for h in holes:
         face = plan.face(h.face)
-        u, v = (round(c, 6) + 0.0 for c in face.to_face(h.entry_mm))
+        # a nut slot is found where it leaves its face, not on the screw axis
+        at = h.slot_exit_mm if h.slot_exit_mm is not None else h.entry_mm
+        u, v = (round(c, 6) + 0.0 for c in face.to_face(at))
         thread = h.thread or ""
         # the designed size; a printed hole is modelled larger by its compensation
         size = md.L(h.diameter_mm - h.compensation_mm)
@@ -244,39 +246,24 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
 
 
 def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
-    from generators.standards.fasteners import set_screw_lengths
-
+    """One row per kind of screw the plan chose, then the screws of the clearance holes."""
     rows = []
-    ss = checks.set_screws
-    if ss:
-        by: dict[tuple, int] = {}
-        for f in ss:
-            by[(f["thread"], f["length_mm"], f.get("captive_nut", False))] = by.get(
-                (f["thread"], f["length_mm"], f.get("captive_nut", False)), 0) + 1
-        for (thread, length, nut), n in by.items():
-            rows.append([str(n), "socket set screw, cup point (ISO 4029 / ASME B18.3)",
-                         f"{thread} x {format_length(length, md.units)}",
-                         "chosen from stock lengths: reaches the pole, sits below the face"
-                         + ("; runs through a captive nut" if nut else "")])
-            if nut:
-                rows.append([str(n), "hex nut (captive, in its pocket)", thread, "ISO 4032 / ASME B18.2.2"])
-    clamps = [h for h in plan.holes if h.kind == "clamp"]
-    if clamps:
-        thread = clamps[0].thread or (cfg.mast_clamp.thread.designation if cfg.mast_clamp else "")
-        gap = clamps[0].depth_mm + (plan.bore_mm - plan.mast_od_mm) / 2
-        from generators.standards.threads import parse_thread
-
-        major = parse_thread(thread).major_mm
-        try:
-            fit = [x for x in set_screw_lengths(thread) if x <= gap + 1e-9]
-        except Exception:  # noqa: BLE001 - no stock table for this size
-            fit = []
-        if fit and max(fit) >= gap - 2 * major:
-            item, size = "mast clamp: socket set screw, cup point", f"{thread} x {format_length(max(fit), md.units)}"
-        else:
-            item, size = "mast clamp: bolt or thumb screw", f"{thread}, at least {md.L(gap)} under the head"
-        rows.append([str(len(clamps)), item, size,
-                     f"face to mast {md.L(gap)}; a sleeve in the bore changes this (see the sleeves)"])
+    by: dict[tuple, list[str]] = {}
+    for h in plan.holes:
+        s = h.screw
+        if s is None or s.kind == "screw":
+            continue
+        cb = f"; counterbore {md.L(h.counterbore.diameter_mm)} across, {md.L(h.counterbore.depth_mm)} deep" \
+            if h.counterbore is not None and h.kind == "clamp" else ""
+        what = "mast clamp: " if h.kind == "clamp" else ""
+        by.setdefault((what + s.standard, s.designation, s.note + cb), []).append(h.id)
+    for (item, size, note), ids in by.items():
+        rows.append([str(len(ids)), item, size, f"{note} ({', '.join(ids)})"])
+        if "+ hex nut" in size:
+            rows.append([str(len(ids)), "hex nut (captive, in its pocket)", size.split(" x ")[0],
+                         "ISO 4032 / ASME B18.2.2"])
+    if any(h.kind == "clamp" for h in plan.holes) and plan.bore_mm > plan.mast_od_mm + 1e-6 and cfg.reducers:
+        rows.append(["-", "mast clamp with a sleeve", "-", "a sleeve in the bore changes the length (see the sleeves)"])
     extras: dict[tuple, list[str]] = {}
     specs = {x.id: x for x in cfg.holes}
     for h in plan.holes:
@@ -284,8 +271,9 @@ def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
             continue
         spec = specs.get(h.id)
         clear = spec.clearance.designation if spec is not None and spec.clearance is not None else None
-        if h.thread:
-            key = ("screw into a tapped hole", h.thread, f"length: what it clamps + up to {md.L(h.depth_mm)} of thread")
+        if h.screw is not None:
+            key = ("screw into a tapped hole" if h.thread else "screw + captive nut or insert", h.screw.designation,
+                   h.screw.note)
         elif clear and h.countersink:
             key = ("flat head screw + nut", clear, f"countersunk; through {md.L(h.depth_mm)} of hub + what it holds")
         elif clear and h.counterbore:

@@ -24,3 +24,23 @@ def series_reaching(diameter_mm: float, depth_mm: float) -> str | None:
         if flute is not None and depth_mm <= flute + 1e-9:
             return series
     return None
+
+
+# Length of a tap's square end held in the tap wrench: about 12 mm (common practice).
+TAP_GRIP_MM = 12.0
+
+
+def hand_tap_reach_mm(thread) -> float | None:
+    """How far below the face a hand tap's point reaches: its overall length (DIN 371 / 376,
+    ASME B94.9; data/tap_lengths.csv, from memory) less the square held in the wrench; None
+    for a size not in the table."""
+    from generators.standards.threads import parse_thread
+    from generators.units import MM_PER_IN
+
+    t = parse_thread(thread)
+    for row in table("tap_lengths.csv"):
+        size = row["size"] if isinstance(row["size"], str) else f"{row['size']:g}"
+        if size == t.size:
+            overall = row["overall_mm"] if row["overall_mm"] is not None else row["overall_in"] * MM_PER_IN
+            return overall - TAP_GRIP_MM
+    return None

@@ -20,6 +20,13 @@ _METRIC_LENGTHS = (2, 2.5, 3, 4, 5, 6, 8, 10, 12, 16, 20, 25, 30, 35, 40, 45, 50
 _INCH_LENGTHS = (1 / 16, 3 / 32, 1 / 8, 3 / 16, 1 / 4, 5 / 16, 3 / 8, 7 / 16, 1 / 2, 5 / 8, 3 / 4,
                  7 / 8, 1, 1.25, 1.5, 1.75, 2)
 
+# Socket head cap screw lengths (from memory: ISO 4762 preferred length series; ASME B18.3
+# lengths as commonly stocked, 1/8 in steps to 1 in, 1/4 in to 4 in, 1/2 in beyond).
+_CAP_METRIC_LENGTHS = (5, 6, 8, 10, 12, 16, 20, 25, 30, 35, 40, 45, 50, 55, 60, 65, 70, 80, 90, 100,
+                       110, 120, 130, 140, 150, 160, 180, 200)
+_CAP_INCH_LENGTHS = (0.25, 0.375, 0.5, 0.625, 0.75, 0.875, 1, 1.25, 1.5, 1.75, 2, 2.25, 2.5, 2.75, 3,
+                     3.25, 3.5, 3.75, 4, 4.5, 5, 5.5, 6)
+
 CBORE_EXTRA_DEPTH_MM = 0.5  # sink the head below the surface (common practice)
 
 
@@ -120,3 +127,20 @@ def set_screw_lengths(thread: Thread | str, key: str = "thread") -> list[float]:
     if row["unit"] == "mm":
         return [float(x) for x in _METRIC_LENGTHS if lo - 1e-9 <= x <= hi + 1e-9]
     return [x * MM_PER_IN for x in _INCH_LENGTHS if lo - 1e-9 <= x <= hi + 1e-9]
+
+
+def cap_screw_lengths(thread: Thread | str, key: str = "thread") -> list[float]:
+    """Stock socket head cap screw lengths under the head in mm (ISO 4762, ASME B18.3)."""
+    row = _row(thread, "cap_screws.csv", "socket head cap screw", key)
+    lo, hi = row["min_length"], row["max_length"]
+    if row["unit"] == "mm":
+        return [float(x) for x in _CAP_METRIC_LENGTHS if lo - 1e-9 <= x <= hi + 1e-9]
+    return [x * MM_PER_IN for x in _CAP_INCH_LENGTHS if lo - 1e-9 <= x <= hi + 1e-9]
+
+
+def cap_screw_thread_mm(thread: Thread | str, length_mm: float, key: str = "thread") -> float:
+    """Threaded length of a socket head cap screw: the whole screw when short, else the
+    standard thread length (from memory: ISO 4762 b = 2 d + 12 mm; ASME B18.3 LT = 2 D + 1/2 in)."""
+    t = parse_thread(thread, key)
+    b = 2 * t.major_mm + (0.5 * MM_PER_IN if t.inch else 12.0)
+    return min(length_mm, b)

@@ -50,14 +50,15 @@ class HoleModel:
     cs: dict | None
     cb: dict | None
     tip: float = 0.0  # a blind drilled hole's point cone runs this far past depth on the axis
+    cl: dict | None = None  # the clearance before a thread that starts inside the hole
 
     @classmethod
     def from_manifest(cls, rec: dict) -> "HoleModel":
         return cls(rec["id"], rec["kind"], rec["face"], np.array(rec["entry_mm"], dtype=float),
                    unit(rec["axis"]), rec["diameter_mm"] / 2, rec["depth_mm"], rec["through"],
-                   rec["countersink"], rec["counterbore"],
+                   rec["countersink"], rec["counterbore"], cl=rec.get("clearance"),
                    # cone of included angle point_deg on radius r: r / tan(angle / 2) (geometry)
-                   rec["diameter_mm"] / 2 / math.tan(math.radians(rec["point_deg"] / 2)) if rec.get("point_deg") else 0.0)
+                   tip=rec["diameter_mm"] / 2 / math.tan(math.radians(rec["point_deg"] / 2)) if rec.get("point_deg") else 0.0)
 
     def at(self, t: float) -> np.ndarray:
         return self.entry + self.axis * t
@@ -68,11 +69,14 @@ class HoleModel:
 
     @property
     def outer_r(self) -> float:
-        return max(self.r, (self.cs or {}).get("diameter_mm", 0) / 2, (self.cb or {}).get("diameter_mm", 0) / 2)
+        return max(self.r, (self.cs or {}).get("diameter_mm", 0) / 2, (self.cb or {}).get("diameter_mm", 0) / 2,
+                   (self.cl or {}).get("diameter_mm", 0) / 2)
 
     @property
     def recess_depth(self) -> float:
-        """Axial length of the countersink cone or counterbore at the entry (0 if none)."""
+        """Axial length of the countersink cone, counterbore or clearance at the entry (0 if none)."""
+        if self.cl:
+            return max(self.cl["depth_mm"], (self.cb or {}).get("depth_mm", 0.0))
         if self.cs:
             return (self.cs["diameter_mm"] / 2 - self.r) / math.tan(math.radians(self.cs["angle_deg"] / 2))
         if self.cb:

@@ -20,3 +20,17 @@ def test_shortest_series_that_reaches():
     assert series_reaching(5.2, 40.0) == "jobber"
     assert series_reaching(5.2, 80.0) == "long"  # past 52 mm of jobber flutes, within 87 mm
     assert series_reaching(5.2, 96.5) is None  # a 3.8 in hole: no twist-drill series of these reaches
+
+
+@pytest.mark.parametrize("d,flute", [(2.5, 30), (3.2, 36), (3.5, 39)])
+def test_small_jobber_flute_lengths_din_338(d, flute):
+    assert flute_length_mm(d, "jobber") == flute  # DIN 338 (from memory)
+
+
+@pytest.mark.parametrize("thread,overall_mm", [("M6", 80.0), ("M10", 100.0), ("1/4-20", 2.5 * 25.4),
+                                               ("#10-24", 2.375 * 25.4)])
+def test_hand_tap_reach_is_its_length_less_the_wrench_square(thread, overall_mm):
+    from generators.standards.drill_lengths import TAP_GRIP_MM, hand_tap_reach_mm
+
+    # DIN 371 (metric) and ASME B94.9 (inch) overall lengths, from memory
+    assert hand_tap_reach_mm(thread) == pytest.approx(overall_mm - TAP_GRIP_MM)

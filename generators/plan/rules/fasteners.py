@@ -34,48 +34,38 @@ class FastenerRules(RulesBase):
                           f" under {ENGAGE_MIN_D:g} x D fails")
 
     def set_screw_fit(self) -> list[dict]:
-        """Per set screw: distance from its face to the seated pole, thread length, the
-        chosen or configured stock length and how much of it sits in the thread."""
+        """Per set screw: distance from its face to the seated pole, where its thread is (a
+        tapped run, a captive nut or an insert), the stock length the plan chose (or the
+        configured one) and how much of it sits in the thread."""
         from generators.standards.fasteners import set_screw_lengths
         from generators.standards.threads import parse_thread
 
         ss = self.cfg.set_screws
         out = []
         for h in (h for h in self.plan.holes if h.kind == "set_screw"):
+            if h.screw is None:
+                continue
             sock = next(s for s in self.sockets if s.spreader == h.spreader)
             e = self._elev(sock)
             # the pole pushed onto the far side of its socket by the screw
             gap_to_pole = h.depth_mm - (self.cfg.spreaders.diameter - sock.radius_mm) / math.cos(e)
             pocket = None if h.thread else self._pocket(h)
-            if h.thread:
-                thread, thread_len, nut_far = h.thread, self._engaged(h), None
-            elif pocket is not None and pocket.thread:
-                # a captive nut: the screw must run through it; it sits across the hole
-                t_nut = sum((pocket.entry_mm[i] - h.entry_mm[i]) * h.axis[i] for i in range(3))
-                thread, nut_far = pocket.thread, t_nut + pocket.depth_mm / 2
-                thread_len = pocket.depth_mm
+            if h.tapped is not None:
+                start, end = h.tapped.start_mm, h.tapped.end_mm
+            elif pocket is not None:
+                start = sum((pocket.entry_mm[i] - h.entry_mm[i]) * h.axis[i] for i in range(3))
+                end = start + pocket.depth_mm
             else:
                 continue
-            lengths = set_screw_lengths(thread)
-            D = parse_thread(thread).major_mm
-            if ss is not None and ss.length is not None:
-                length, chosen = ss.length, False
-            else:
-                fit = [x for x in lengths if x <= gap_to_pole + 1e-9]
-                length, chosen = (max(fit) if fit else min(lengths)), True
-            if nut_far is None:
-                in_thread = length - (gap_to_pole - thread_len)
-            else:  # overlap of the screw [gap - L, gap] with the nut [far - h, far]
-                in_thread = min(gap_to_pole, nut_far) - max(gap_to_pole - length, nut_far - thread_len)
-                if chosen:  # the shortest stock length that runs through the whole nut
-                    ok = [x for x in lengths if x <= gap_to_pole + 1e-9 and gap_to_pole - x <= nut_far - thread_len + 1e-9]
-                    if ok:
-                        length = min(ok)
-                        in_thread = min(gap_to_pole, nut_far) - max(gap_to_pole - length, nut_far - thread_len)
-            out.append({"hole": h.id, "thread": thread, "length_mm": length, "chosen": chosen,
-                        "gap_to_pole_mm": gap_to_pole, "thread_mm": thread_len,
-                        "in_thread_mm": in_thread, "major_mm": D, "captive_nut": nut_far is not None,
-                        "stock_mm": lengths})
+            thread, length = h.screw.thread, h.screw.length_mm
+            in_thread = min(gap_to_pole, end) - max(gap_to_pole - length, start)
+            out.append({"hole": h.id, "thread": thread, "length_mm": length,
+                        "chosen": ss is None or ss.length is None,
+                        "gap_to_pole_mm": gap_to_pole, "thread_mm": end - start, "thread_start_mm": start,
+                        "thread_end_mm": end, "in_thread_mm": in_thread,
+                        "major_mm": parse_thread(thread).major_mm,
+                        "captive_nut": pocket is not None and pocket.kind == "nut_pocket",
+                        "stock_mm": set_screw_lengths(thread)})
         return out
 
     def rule_set_screw_length(self) -> RuleResult:
@@ -103,8 +93,9 @@ class FastenerRules(RulesBase):
                    f" {self.fmt(f['in_thread_mm'])} in the thread, {self.fmt(f['gap_to_pole_mm'] - f['length_mm'])}"
                    " below the face").replace("  ", " ")
         else:
-            fit = [x for x in f["stock_mm"] if x <= f["gap_to_pole_mm"] + 1e-9
-                   and x - (f["gap_to_pole_mm"] - f["thread_mm"]) >= self._need_in_thread(f) - 1e-9]
+            g, lo, hi = f["gap_to_pole_mm"], f["thread_start_mm"], f["thread_end_mm"]
+            fit = [x for x in f["stock_mm"] if x <= g + 1e-9
+                   and min(g, hi) - max(g - x, lo) >= self._need_in_thread(f) - 1e-9]
             hint = (f"use {f['thread']} x {self.fmt(max(fit))} (set_screws.length)" if fit else
                     "no stock length fits: a thicker hub, or a set screw position where the hole is longer")
             msg = f"{f['hole']}: {size} {why}; {hint}"
