@@ -72,9 +72,8 @@ def mast_loads(cfg, plan, q: float, lengths_m: list[float], directions: list[flo
         best_area = max(best_area, area)
         best_force = max(best_force, q * ld.drag_coefficient * drag_area)
     torque = GUST_FRACTION * best_force * GUST_ECCENTRICITY * 2.0 * tip_radius_mm / 1000.0
-    from generators.plan.loads import pole_bore_mm
-
-    bore = pole_bore_mm(cfg) or 0.0
+    bore = sp.inner_diameter if sp.inner_diameter is not None else (
+        max(sp.diameter - 2.0 * sp.wall, 0.0) if sp.wall is not None else 0.0)
     socket = {s.id: plan.hole(s.socket_hole).depth_mm / 1000.0 for s in plan.spreaders}
     pole_w = sum(pole_mat.density_g_cm3 * 1000.0 * beam.G * beam.tube_area_m2(sp.diameter, bore)
                  * (L + socket[s.id]) for s, L in zip(plan.spreaders, lengths_m))
