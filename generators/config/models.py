@@ -194,7 +194,7 @@ class Loads(Section):
     wire_tension: Annotated[float, Field(ge=0, le=5000)] = 0.0  # N pre-tension at each tip
     wire_angle: Annotated[Angle, Field(ge=0, le=180)] = 90.0  # wire pull from the pole axis
     ice_thickness: Annotated[Length, Field(ge=0, le=100)] = 0.0  # radial ice (plan/ice.py)
-    height: PositiveLength | None = None  # above ground: EN 1991-1-4 peak pressure (plan/wind_height.py)
+    height: Annotated[Length, Field(ge=1000, le=200000)] | None = None  # 1 to 200 m above ground: EN 1991-1-4 peak pressure (plan/wind_height.py)
     terrain: Literal["0", "I", "II", "III", "IV"] = "II"  # EN 1991-1-4 table 4.1; II open country
 
 

@@ -26,6 +26,7 @@ POINTS = ("cup", "flat", "dog", "soft")
 # width is taken as 10 % of it (a stated assumption, common practice; the rim is a knife
 # edge when new and widens as it bites).
 CUP_RIM_FRACTION = 0.10
+COMMON_SCALED = "common practice"
 
 
 def _thread(thread: Thread | str, key: str) -> Thread:
@@ -37,20 +38,35 @@ def _by_size(name: str) -> dict[str, dict]:
     return {str(r["size"]): r for r in table(name)}
 
 
-def _row(name: str, thread: Thread, key: str, what: str) -> dict:
+def _row(name: str, thread: Thread) -> tuple[dict | None, float]:
+    """The table row of this size, or the row of the nearest tabulated size with the ratio
+    d / d_row of their major diameters (for scaling); (None, 1) for an empty table."""
     rows = _by_size(name)
-    if thread.size not in rows:
-        raise UserError(key, f"no {what} for {thread.size}", f"sizes with one: {', '.join(rows)}")
-    return rows[thread.size]
+    if thread.size in rows:
+        return rows[thread.size], 1.0
+    best = None
+    for size, r in rows.items():
+        try:
+            d = parse_thread(size if size.startswith("M") else f"{size}-{'32' if size.startswith('#') else '20'}").major_mm
+        except UserError:
+            continue
+        if best is None or abs(math.log(d / thread.major_mm)) < abs(math.log(best[1] / thread.major_mm)):
+            best = (r, d)
+    return (None, 1.0) if best is None else (best[0], thread.major_mm / best[1])
 
 
 def default_torque_nm(thread: Thread | str, hub_class: str, key: str = "torque") -> tuple[float, str]:
     """A conservative tightening torque (N m) for a steel set or clamp screw in a hub of
     ``hub_class`` and the table row's source: the catalogue seating torque in metal, a
     third of it in plastic, wood and composite (tightening_torque.csv)."""
-    r = _row("tightening_torque.csv", _thread(thread, key), key, "default tightening torque")
+    t = _thread(thread, key)
+    r, ratio = _row("tightening_torque.csv", t)
     col = "metal_nm" if hub_class == "metal" else "plastic_nm"
-    return r[col], r["source"]
+    if ratio == 1.0:
+        return r[col], r["source"]
+    # a size not in the table: the nearest one scaled by (d / d_row)^3, the same stress in
+    # the thread (common practice)
+    return r[col] * ratio ** 3, f"{t.size} scaled by d^3 from {r['size']} ({COMMON_SCALED}); {r['source']}"
 
 
 def preload_n(torque_nm: float, thread: Thread | str, k: float = K_CRUSH, key: str = "torque") -> float:
@@ -71,8 +87,8 @@ def point_contact_mm2(thread: Thread | str, point: str, key: str = "set_screws.p
         raise UserError(key, f"unknown set-screw point {point!r}", ", ".join(POINTS))
     if point == "soft":
         return math.pi / 4 * t.major_mm ** 2, "soft tip flattened to the major diameter (common practice)"
-    r = _row("set_screw_points.csv", t, key, "point dimensions")
-    d = r[f"{point}_mm"]
+    r, ratio = _row("set_screw_points.csv", t)
+    d = r[f"{point}_mm"] * ratio  # a size not in the table: the nearest one scaled by d (common practice)
     if point == "cup":
         return math.pi * d * CUP_RIM_FRACTION * d, f"{r['source']}; rim width {CUP_RIM_FRACTION:g} x dz (common practice)"
     return math.pi / 4 * d * d, r["source"]

@@ -110,7 +110,7 @@ class RetentionRules(RulesBase):
         total, t, t_src = 0.0, None, ""
         for h in clamps:
             name = h.thread or (self._pocket(h).thread if self._pocket(h) is not None else None)
-            thread = parse_thread(name or mc.thread)
+            thread = parse_thread(name) if name else mc.thread
             t, t_src = self._torque(mc, thread, captive=not h.thread)
             total += 2.0 * mu * self._capped(h, thread, preload_n(t, thread, K_HOLD))
         r_m = min([self.plan.mast_od_mm] + [s.mast_od_mm for s in self.sleeve_plans]) / 2000.0
