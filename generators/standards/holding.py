@@ -45,7 +45,10 @@ def _row(name: str, thread: Thread) -> tuple[dict | None, float]:
     if thread.size in rows:
         return rows[thread.size], 1.0
     best = None
+    metric = thread.size.startswith("M")
     for size, r in rows.items():
+        if size.startswith("M") != metric:  # the nearest size of the same series
+            continue
         try:
             d = parse_thread(size if size.startswith("M") else f"{size}-{'32' if size.startswith('#') else '20'}").major_mm
         except UserError:
