@@ -124,7 +124,7 @@ class RetentionRules(RulesBase):
         sf_turn = total * r_m / max(mast.mast_torque_nm, 1e-9)
         sf = min(sf_slide, sf_turn)
         status = FAIL if sf_slide < 1.0 else WARN if sf < SF_RETENTION else PASS
-        msg = (f"{len(clamps)} {thread.size} clamp screw(s) at {t:.2f} N m hold {total:.0f} N along the mast"
+        msg = (f"{len(clamps)} {thread.designation} clamp screw(s) at {t:.2f} N m hold {total:.0f} N along the mast"
                f" and {total * r_m:.1f} N m about it; {demand}: safety factor {sf_slide:.2f} sliding,"
                f" {sf_turn:.2f} turning")
         if status != PASS:
