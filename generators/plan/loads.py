@@ -30,7 +30,7 @@ The model, step by step (every step is conservative where a figure is unknown):
    wind blows along the spreader, plus skin friction along the pole
    ``q Cf pi d L`` with ``Cf`` = 0.01 (turbulent skin friction of a few thousandths,
    Hoerner, from memory, doubled for a rough glass-fibre surface: common practice).
-   Pre-tension in the wires is not in the config and is not included.
+   The wire pre-tension's part along the pole (``[loads] wire_tension``, step 10) adds to it.
 8. What a set screw holds: friction ``2 mu N`` (screw point and the opposite socket
    wall) with ``mu`` = 0.2 (common practice for steel or plastic on glass fibre) and the
    clamp force ``N`` set to half the strip-out force of the hub's thread (common
@@ -282,6 +282,7 @@ def wind_estimate(cfg: Config, plan: HubPlan, engaged_mm: float | None = None,
     hub_mat = get_material(cfg.hub.material)
     sp_worst = next(s for s in plan.spreaders if s.id == worst.spreader)
     bend, axial, shear = pole_bending(cfg, worst, sp_worst.elevation_deg, pole_mat)
+    pull += max(axial, 0.0)  # a wire pulling the tip outwards pulls the pole out of its socket
     area = tube_area_m2(D, 0.0 if solid else d_in)
     sigma = (bend.stress_pa + axial / area) / 1e6 if area > 0 else math.inf
     sock = plan.hole(sp_worst.socket_hole)

@@ -147,6 +147,8 @@ def test_wire_pretension_across_the_pole_by_hand():
     a = checks_for(modified(METRIC_CASE, loads={"wire_tension": 60.0, "wire_angle": 0}))[2].wind
     area = math.pi / 4 * (20 ** 2 - 15 ** 2)
     assert a.spreader_stress_mpa == pytest.approx(base.spreader_stress_mpa + 60 / area, rel=1e-9)
+    # and pulls the pole out of its socket: the set screws hold 60 N more
+    assert a.set_screw_pull_n == pytest.approx(base.set_screw_pull_n + 60, rel=1e-9)
 
 
 def test_pressure_at_height_en_1991_1_4():
