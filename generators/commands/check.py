@@ -26,7 +26,8 @@ def wind_lines(wind: dict, units: str) -> list[str]:
     from generators.plan.rules import speed_text
 
     w = wind
-    lines = [f"wind  {speed_text(w['speed_m_s'], units)}: dynamic pressure {w['pressure_pa']:.0f} Pa"]
+    lines = [f"wind  {speed_text(w['speed_m_s'], units)}: dynamic pressure {w['pressure_pa']:.0f} Pa"
+             f" ({w.get('pressure_basis') or 'reference height'})"]
     if w["force_per_spreader_n"] is None:
         return lines + ["      loads not estimated (no tip position: spreaders.tip_radius or tip_spacing)"]
     if w.get("plate_stress_mpa") is not None:  # a plate hub: U-bolt and plate figures
@@ -44,6 +45,10 @@ def wind_lines(wind: dict, units: str) -> list[str]:
         f"      lowest safety factor {w['safety_factor']:.2f}"
         if w["safety_factor"] is not None else "      no safety factor computed",
     ]
+    from generators.report.mast_figures import ADVICE, mast_rows
+
+    lines += [f"      {label}: {value}" for label, value in mast_rows(w, units)]
+    lines += textwrap.wrap(ADVICE, 94, initial_indent="      ", subsequent_indent="      ")
     return lines
 
 

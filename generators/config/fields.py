@@ -46,6 +46,26 @@ def _speed(value, info):
     return u.speed_m_s(value, info.field_name or "")
 
 
+# Torque units, exact by definition: 1 lbf = 4.4482216152605 N (NIST SP 811), 1 in = 0.0254 m.
+_TORQUE = {"n m": 1.0, "nm": 1.0, "n.m": 1.0, "in-lbf": 0.0254 * 4.4482216152605,
+           "in lbf": 0.0254 * 4.4482216152605, "ft-lbf": 0.3048 * 4.4482216152605,
+           "ft lbf": 0.3048 * 4.4482216152605}
+
+
+def _torque(value, info):
+    """A torque in N m: a bare number is N m; a string may say "N m", "in-lbf" or "ft-lbf"."""
+    if isinstance(value, (int, float)) and not isinstance(value, bool):
+        return float(value)
+    import re
+
+    m = re.fullmatch(r"\s*([0-9]*\.?[0-9]+)\s*([A-Za-z .-]+)\s*", str(value))
+    unit = m and m[2].strip().lower()
+    if not m or unit not in _TORQUE:
+        raise UserError(info.field_name or "torque", f"{value!r} is not a torque",
+                        'a number in N m, or "3 N m", "25 in-lbf", "2 ft-lbf"')
+    return float(m[1]) * _TORQUE[unit]
+
+
 Length = Annotated[float, BeforeValidator(_wrap(_length, "length"))]
 """A length in mm."""
 Angle = Annotated[float, BeforeValidator(_wrap(_angle, "angle"))]
@@ -54,6 +74,8 @@ Azimuth = Annotated[float, BeforeValidator(_wrap(_azimuth, "angle"))]
 """An azimuth in degrees, in [0, 360)."""
 Speed = Annotated[float, BeforeValidator(_wrap(_speed, "speed"))]
 """A speed in m/s."""
+Torque = Annotated[float, BeforeValidator(_wrap(_torque))]
+"""A tightening torque in N m."""
 
 
 def field_kind(annotation, metadata=()) -> str | None:

@@ -9,7 +9,7 @@ from typing import Annotated, Literal
 
 from pydantic import BaseModel, BeforeValidator, ConfigDict, Field, ValidationInfo, field_validator, model_validator
 
-from generators.config.fields import Angle, Azimuth, Length, Speed, _units, _wrap
+from generators.config.fields import Angle, Azimuth, Length, Speed, Torque, _units, _wrap
 from generators.errors import UserError
 from generators.units import length_mm
 
@@ -149,11 +149,14 @@ class SetScrews(Section):
     face: Literal["top", "bottom"] = "top"
     position: PositiveLength | None = None
     length: PositiveLength | None = None
+    point: Literal["cup", "flat", "dog", "soft"] = "cup"  # ISO 4026-4029 / ASME B18.3 point
+    torque: Annotated[Torque, Field(gt=0, le=500)] | None = None  # N m; default: tightening table
 
 
 class MastClamp(Section):
     thread: ThreadSpec
     count: Annotated[int, Field(ge=1, le=12)] = 1
+    torque: Annotated[Torque, Field(gt=0, le=500)] | None = None  # N m; default: tightening table
     height: Annotated[Length, Field(ge=0)] | None = None  # clamp axis above the bottom face; default mid-thickness
     # azimuths of the clamp holes; default: 90 deg apart for two, 120 deg for three
     # (generators/plan/clamp_places.py); count defaults to how many are given
@@ -218,6 +221,11 @@ class Loads(Section):
     wire_diameter: Annotated[Length, Field(ge=0)] = 0.0
     wire_length_per_spreader: Annotated[Length, Field(ge=0)] = 0.0
     spreader_material: MaterialId = "fiberglass"
+    wire_tension: Annotated[float, Field(ge=0, le=5000)] = 0.0  # N pre-tension at each tip
+    wire_angle: Annotated[Angle, Field(ge=0, le=180)] = 90.0  # wire pull from the pole axis
+    ice_thickness: Annotated[Length, Field(ge=0, le=100)] = 0.0  # radial ice (plan/ice.py)
+    height: Annotated[Length, Field(ge=1000, le=200000)] | None = None  # 1 to 200 m above ground: EN 1991-1-4 peak pressure (plan/wind_height.py)
+    terrain: Literal["0", "I", "II", "III", "IV"] = "II"  # EN 1991-1-4 table 4.1; II open country
 
 
 class Reducer(Section):

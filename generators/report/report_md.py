@@ -19,9 +19,9 @@ CAUTIONS = (
     " touch them if the mast falls or the antenna swings. Look up before you raise anything.",
     "**Raising and climbing**: raise the mast with a helper and guy it as the mast maker rates it;"
     " never climb a mast or tower without fall protection and training.",
-    "**Wind and ice**: the wind figures here are an estimate, not a structural certification. Ice on"
-    " the spreaders and wires adds weight and wind area that are not included. Lower the antenna"
-    " before storms.",
+    "**Wind and ice**: the wind figures here are an estimate, not a structural certification. Ice is"
+    " included only as thick as `[loads] ice_thickness` says; the site's ice and wind maps decide."
+    " Lower the antenna before storms.",
     "**Drilling and tapping**: wear eye protection, clamp the work (never hold it by hand), keep"
     " hands and loose sleeves clear of the drill, and clear chips with a brush, not fingers.",
     "**RF exposure**: observe the RF exposure limits of your licence and local rules around the"
@@ -302,20 +302,27 @@ def wind_section(md: _Md, cfg, checks) -> None:
         md.add(f"Not estimated: {w.skipped}.", "")
         return
     rows = [
-        ["dynamic pressure q = 1/2 rho V^2", f"{w.pressure_pa:.0f} Pa"],
+        [f"design pressure ({w.pressure_basis})", f"{w.pressure_pa:.0f} Pa"],
         ["exposed spreader length L (socket mouth to tip)", f"{md.both(w.exposed_length_m * 1000)}"],
         ["force on the worst spreader (pole + wire share)", f"{w.force_per_spreader_n:.1f} N"],
         ["bending moment at the socket mouth (q Cd d L^2/2 + F_wire L)", f"{w.moment_at_hub_nm:.1f} N m"],
-        ["spreader stress sigma = M c / I", f"{w.spreader_stress_mpa:.0f} MPa (allowable {w.spreader_allowable_mpa:.0f} MPa)"],
+        ["moment at the socket mouth with wire pull, weight and ice", f"{w.root_moment_nm:.1f} N m"],
+        ["spreader stress sigma = M c / I (+ axial pull)", f"{w.spreader_stress_mpa:.0f} MPa (allowable {w.spreader_allowable_mpa:.0f} MPa)"],
         ["peak bearing on the socket wall", f"{w.bearing_pressure_mpa:.1f} MPa (allowable {w.hub_bearing_allowable_mpa:g} MPa)"],
         ["axial pull the set screws hold", f"{w.set_screw_pull_n:.0f} N"
          + (f" (they hold about {w.set_screw_capacity_n:.0f} N)" if w.set_screw_capacity_n else "")],
         ["lowest safety factor", f"{w.safety_factor:.2f}" if w.safety_factor is not None else "-"],
     ]
     md.table(["figure", "value"], rows)
+    from generators.report.mast_figures import ADVICE, mast_rows
+
+    md.add("What the antenna puts on the mast:", "")
+    md.table(["figure", "value"], mast_rows(w.as_json(), md.units))
+    md.add(ADVICE, "")
     md.add(f"Worst case: wind across spreader {w.worst_spreader} (from azimuth sweep). The pole is taken"
            " at its hub-end diameter all the way out and the wire broadside to the wind, both on the safe"
-           " side; wire pre-tension, ice and the pole's own weight are not included. Dynamic pressure,"
+           f" side; wire pre-tension ({ld.wire_tension:g} N at {ld.wire_angle:g} deg), radial ice"
+           f" ({md.L(ld.ice_thickness)}) and the pole's own weight are included (plan/beam.py). Dynamic pressure,"
            " cylinder drag (Cd 1.2, Hoerner \"Fluid-Dynamic Drag\"; White \"Fluid Mechanics\") and the tube"
            " section (I = pi (D^4 - d^4)/64, Roark \"Formulas for Stress and Strain\") are textbook"
            " formulas; the socket bearing model is common practice. This is an estimate, not a"

@@ -12,7 +12,9 @@ from .helpers import INCH, METRIC, ROOT, modified, toml_text
 
 RULE_KEYS = {"id", "status", "value", "limit", "unit", "message", "source"}
 WIND_KEYS = {"speed_m_s", "pressure_pa", "force_per_spreader_n", "moment_at_hub_nm", "spreader_stress_mpa",
-             "bearing_pressure_mpa", "set_screw_pull_n", "safety_factor"}
+             "bearing_pressure_mpa", "set_screw_pull_n", "safety_factor", "pressure_basis",
+             # what the antenna puts on the mast (issue 15)
+             "wind_area_m2", "mast_force_n", "mast_torque_nm", "weight_n", "ice_weight_n", "tip_deflection_mm"}
 
 
 def hubwright(*args, cwd=ROOT):

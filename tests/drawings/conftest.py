@@ -22,7 +22,7 @@ BIG_BLOCK_INCH = {
     "mast": {"size": "2 in"},
     "hub": {"style": "block", "across_flats": 11, "thickness": 2, "corner_chamfer": 1, "material": "hdpe"},
     "spreaders": {"count": 4, "diameter": 1.25, "first_azimuth": 0, "socket_depth": 3},
-    "set_screws": {"thread": "5/16-18", "per_spreader": 2},
+    "set_screws": {"thread": "5/16-18", "per_spreader": 2, "point": "soft"},
     "mast_clamp": {"thread": "3/8-16", "count": 2},
     "holes": [{"id": "CB1", "at": [-3.5, 2.0], "clearance": "1/4-20", "counterbore": True},
               {"id": "BIG", "at": [3.0, -3.0], "diameter": 1.0, "depth": 1.0}],

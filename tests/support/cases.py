@@ -3,7 +3,8 @@
 Together with the two demos in configs/ they cover 3, 4, 6 and 8 spreaders, block and
 puck bodies, elevations of 0, 10 and 30 deg, mm and inch configs, clamp holes through
 flats, chamfers and a puck rim, and extra holes plain, tapped, countersunk and
-counterbored, through and blind, on both faces.
+counterbored, through and blind, on both faces. Set screws have soft points (and a light
+torque where the default would crush a fibreglass pole: the set-screw-crush rule).
 """
 
 from __future__ import annotations
@@ -30,7 +31,7 @@ TRI_PUCK_30 = {
     "mast": {"size": "32 mm", "clearance": 1.0},
     "hub": {"style": "puck", "diameter": 120, "thickness": 52, "material": "petg", "process": "machined"},
     "spreaders": {"count": 3, "diameter": 16, "elevation": "30 deg", "first_azimuth": 90},
-    "set_screws": {"thread": "M5", "per_spreader": 2, "face": "bottom"},
+    "set_screws": {"thread": "M5", "per_spreader": 2, "face": "bottom", "point": "soft"},
     "mast_clamp": {"thread": "M6", "count": 3},
     "holes": [
         {"id": "CB1", "face": "top", "at": [-40.0, 0.0], "clearance": "M4", "counterbore": True},
@@ -45,7 +46,7 @@ OCT_BLOCK_INCH = {
     "hub": {"style": "block", "across_flats": 6.5, "thickness": 1.25, "bore": 2.0,
             "material": "uhmw"},
     "spreaders": {"count": 8, "diameter": 0.5, "fit": 0.02, "elevation": 0, "first_azimuth": 22.5},
-    "set_screws": {"thread": "8-32", "per_spreader": 2, "face": "top"},
+    "set_screws": {"thread": "8-32", "per_spreader": 2, "face": "top", "point": "soft"},
     "holes": [
         {"id": "CS1", "face": "bottom", "at": [1.8, 0.0], "clearance": "#8-32", "countersink": True},
         {"id": "CB2", "face": "bottom", "at": [-1.8, 0.0], "clearance": "#8-32", "counterbore": True},
@@ -71,7 +72,8 @@ QUAD_PUCK_10_INCH = {
     "hub": {"style": "puck", "diameter": 5.0, "thickness": 1.75, "material": "hdpe"},
     "spreaders": {"count": 4, "diameter": 0.625, "elevation": "10 deg", "first_azimuth": 45,
                   "socket_depth": 1.2},  # blind: the clamp screw passes between the socket floors
-    "set_screws": {"thread": "1/4-20", "per_spreader": 1, "face": "top", "position": 0.6},
+    "set_screws": {"thread": "1/4-20", "per_spreader": 1, "face": "top", "position": 0.6,
+                   "point": "soft", "torque": "18 in-lbf"},
     "mast_clamp": {"thread": "1/4-20", "count": 1},
     "holes": [{"id": "P1", "face": "top", "at": [0.0, 1.7], "diameter": 0.25, "depth": 0.5}],
 }

@@ -15,21 +15,24 @@ from generators.plan.rules.base import (  # noqa: F401 - the rules' public vocab
     COMMON, FAIL, MIN_WALL_MM, PASS, WARN, RuleResult, speed_text)
 from generators.plan.rules.fasteners import FastenerRules
 from generators.plan.rules.placement import PlacementRules, estimate_volume_mm3  # noqa: F401
+from generators.plan.rules.retention import RetentionRules
 from generators.plan.rules.walls import WallRules
 from generators.plan.rules.wind import WindRules
 
 # The order the rules run and are shown in, group by group.
 GROUPS = (
     ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore", "rule_hole_wall")),
-    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length")),
+    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length", "rule_set_screw_crush")),
     ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt")),
     ("sleeves", ("rule_sleeve_wall",)),
     ("mass", ("rule_mass",)),
+    ("retention", ("rule_mast_retention",)),  # after the wind estimate: it needs its loads
 )
+WITH_WIND = ("rule_mast_retention",)
 RULES = tuple(name for _, names in GROUPS for name in names)
 
 
-class _Rules(WallRules, FastenerRules, PlacementRules, WindRules):
+class _Rules(WallRules, FastenerRules, PlacementRules, RetentionRules, WindRules):
     pass
 
 
@@ -51,14 +54,13 @@ class Checks:
 def evaluate(cfg: Config, plan: HubPlan, sleeves: tuple = (), walls: tuple | None = None) -> Checks:
     """Every rule and the wind estimate for a plan (``sleeves``: its sleeve plans; ``walls``:
     its measured walls, measured here when not given)."""
-    from generators.plan.loads import wind_estimate
-
     from generators.plan.hard_limits import check_hard_limits
+    from generators.plan.loads import wind_estimate
 
     r = _Rules(cfg, plan, sleeves, walls)
     check_hard_limits(cfg, plan, r.walls)
-    results = [getattr(r, name)() for name in RULES]
-    wind = wind_estimate(cfg, plan, r.engaged_set_screw_mm())
+    wind = wind_estimate(cfg, plan, r.engaged_set_screw_mm(), r.mass_estimate_g(), r.set_screw_clamp_n())
+    results = [getattr(r, name)(wind) if name in WITH_WIND else getattr(r, name)() for name in RULES]
     results += r.wind_rules(wind)
     return Checks(rules=tuple(results), wind=wind, set_screws=tuple(r.set_screw_fit()),
                   sleeves=tuple(r.sleeves()), mass_estimate_g=r.mass_estimate_g())

@@ -2,12 +2,24 @@
 
 from __future__ import annotations
 
+from generators.standards.materials import get_material
 
 from generators.plan.rules.base import (  # noqa: F401
     COMMON, DEPTH_MIN_D, DEPTH_RECOMMENDED_D, EDGE_MIN_D, EDGE_RECOMMENDED_D, ENGAGE_MIN_D, FAIL,
     MASS_WARN_FRACTION, PASS, POCKETS, RECOMMENDED_OVER_MIN, SET_SCREW_MIN_ENGAGED_D, SF_BEARING, SF_FAIL,
     SF_SET_SCREW, SF_SPREADER, SLEEVE_MIN_MM, SLEEVE_RECOMMENDED_MM, WALL_OVER_SOCKET, WARN, RuleResult,
     RulesBase, _grade, speed_text)
+
+
+# A brittle composite pole (pultruded glass fibre) against its ultimate strength: warn below
+# 2.5, the safety factor on ultimate flexural strength of pultruded FRP design manuals'
+# allowable-stress tables (from memory; the ASCE pre-standard for LRFD of pultruded FRP
+# structures, 2010, reaches a similar margin through resistance factor 0.65 and load
+# factors, from memory); fail below 1.5 (common practice: no margin left for creep rupture,
+# ageing, notches at the socket mouth and a pole's scatter).
+SF_BRITTLE, SF_BRITTLE_FAIL = 2.5, 1.5
+BRITTLE_SOURCE = ("brittle composite against its ultimate strength: SF 2.5 of pultruded FRP design manuals"
+                  " (from memory), under 1.5 fails (common practice)")
 
 
 class WindRules(RulesBase):
@@ -17,18 +29,27 @@ class WindRules(RulesBase):
             return [RuleResult("wind", WARN, None, None, "", f"wind not estimated: {wind.skipped}",
                                "issue: wind needs the tip position")]
         out = []
-        src_pole = ("sigma = M c / I, I = pi (D^4 - d^4)/64 (Roark; Gere; from memory); q = rho V^2 / 2;"
+        src_pole = ("sigma = M c / I, I = pi (D^4 - d^4)/64 (Roark; Gere; from memory); q = rho V^2 / 2"
+                    f" or EN 1991-1-4 qp(z) ({wind.pressure_basis});"
                     " Cd 1.2 long cylinder (Hoerner; White; from memory); allowable from the materials table")
         note = " (no spreaders.wall or inner_diameter: taken as a solid rod)" if wind.solid_pole else ""
         sf = wind.sf_spreader
-        st = FAIL if sf < SF_FAIL else WARN if sf < SF_SPREADER else PASS
+        brittle = get_material(self.cfg.loads.spreader_material).material_class == "composite"
+        fail_below, warn_below = (SF_BRITTLE_FAIL, SF_BRITTLE) if brittle else (SF_FAIL, SF_SPREADER)
+        st = FAIL if sf < fail_below else WARN if sf < warn_below else PASS
+        ld = self.cfg.loads
+        extra = [x for x, on in (("wire pre-tension", ld.wire_tension > 0), ("ice", ld.ice_thickness > 0)) if on]
         msg = (f"spreader {wind.worst_spreader}: {wind.spreader_stress_mpa:.0f} MPa at the socket mouth in"
-               f" {speed_text(wind.speed_m_s, self.cfg.units)} against {wind.spreader_allowable_mpa:.0f} MPa"
-               f" ({self.cfg.loads.spreader_material}){note}: safety factor {sf:.2f}")
+               f" {speed_text(wind.speed_m_s, self.cfg.units)} (wind, own weight{''.join(', ' + x for x in extra)})"
+               f" against {wind.spreader_allowable_mpa:.0f} MPa"
+               f" ({'ultimate' if brittle else 'yield'}, {ld.spreader_material}){note}: safety factor {sf:.2f}")
         if st != PASS:
             msg += ("; the pole itself is at risk in this wind" if sf < 1 else "") + \
-                   ": a stiffer or thicker-walled pole, shorter spreaders, or lower it before storms"
-        out.append(RuleResult("wind-spreader", st, sf, SF_SPREADER, "SF", msg, src_pole))
+                   (f"; a brittle pole wants {SF_BRITTLE:g}" if brittle else "") + \
+                   ": a stiffer or thicker-walled pole, shorter spreaders, less wire tension, or lower it before storms"
+        src_pole += "; " + (BRITTLE_SOURCE if brittle else f"yield, under {SF_FAIL:g} fails ({COMMON})") + \
+            "; pre-tension, weight and ice superposed (plan/beam.py), ice per plan/ice.py"
+        out.append(RuleResult("wind-spreader", st, sf, warn_below if st != FAIL else fail_below, "SF", msg, src_pole))
         sf = wind.sf_bearing
         st = FAIL if sf < SF_FAIL else WARN if sf < SF_BEARING else PASS
         msg = (f"pole on the socket walls: {wind.bearing_pressure_mpa:.1f} MPa peak against"
@@ -51,6 +72,7 @@ class WindRules(RulesBase):
             if st != PASS:
                 msg += ": two set screws per spreader, a larger thread, or a through bolt"
             out.append(RuleResult("wind-set-screw", st, sf, SF_SET_SCREW, "SF", msg,
-                                  "friction 2 mu N, mu 0.2, N = half the thread strip-out force (common"
-                                  " practice); shear area pi D Le / 2 (Machinery's Handbook, from memory)"))
+                                  "friction 2 mu N, mu 0.2 (common practice), N from the set-screw torque,"
+                                  " T = K F d with K 0.3 (standards/holding.py), at most half the thread"
+                                  " strip-out force (shear area pi D Le / 2, Machinery's Handbook, from memory)"))
         return out

@@ -1,0 +1,133 @@
+"""Holding rules: the hub held on the mast, and set-screw points that do not crush the pole.
+
+Forces from tightening torque by ``T = K F d`` (standards/holding.py: K and its source; the
+default torques' table and sources in data/tightening_torque.csv). Half the strip-out force
+of the hub's thread (plan/loads.py step 8) stays as the upper bound of any screw force.
+"""
+
+from __future__ import annotations
+
+from generators.plan.rules.base import COMMON, FAIL, PASS, WARN, RuleResult, RulesBase, _grade
+
+# Safety factors (common practice for an estimate like this one): retention warns below 2
+# and fails below 1; point crush warns below 1.5 and fails below 1.
+SF_RETENTION, SF_CRUSH = 2.0, 1.5
+
+
+class RetentionRules(RulesBase):
+    def _torque(self, section, thread, captive: bool) -> tuple[float, str]:
+        from generators.standards.holding import default_torque_nm
+
+        if section.torque is not None:
+            return section.torque, "torque from the config"
+        # a captive steel nut takes a steel screw's full seating torque
+        t, src = default_torque_nm(thread, "metal" if captive else self.cls)
+        return t, f"default torque ({src})"
+
+    def _capped(self, h, thread, force: float) -> float:
+        from generators.plan.loads import TIGHTEN_FRACTION, strip_force_n
+
+        if not h.thread:  # a captive steel nut: the hub's thread does not limit it
+            return force
+        return min(force, TIGHTEN_FRACTION * strip_force_n(thread.major_mm, self._engaged(h), self.mat.yield_mpa))
+
+    def set_screw_forces(self, k: float | None = None) -> list[tuple]:
+        """(hole, thread, torque N m, torque source, force N) per set screw."""
+        from generators.standards.holding import K_CRUSH, preload_n
+        from generators.standards.threads import parse_thread
+
+        ss = self.cfg.set_screws
+        out = []
+        for h in (h for h in self.plan.holes if h.kind == "set_screw"):
+            pocket = None if h.thread else self._pocket(h)
+            name = h.thread or (pocket.thread if pocket is not None else None)
+            if name is None:
+                continue
+            thread = parse_thread(name)
+            t, src = self._torque(ss, thread, captive=not h.thread)
+            f = self._capped(h, thread, preload_n(t, thread, K_CRUSH if k is None else k))
+            out.append((h, thread, t, src, f))
+        return out
+
+    def set_screw_clamp_n(self) -> float | None:
+        """Least holding force of a set screw (K for holding), for the wind estimate's hold."""
+        from generators.standards.holding import K_HOLD
+
+        forces = [f for *_, f in self.set_screw_forces(K_HOLD)]
+        return min(forces) if forces else None
+
+    def rule_set_screw_crush(self) -> RuleResult:
+        from generators.standards.holding import K_CRUSH, point_contact_mm2, transverse_strength_mpa
+
+        forces = self.set_screw_forces()
+        if not forces:
+            return self._na("set-screw-crush", "SF", "no set screws")
+        point = self.cfg.set_screws.point
+        pole = self.cfg.loads.spreader_material
+        strength, s_src = transverse_strength_mpa(pole)
+        worst = None
+        for h, thread, t, t_src, f in forces:
+            area, a_src = point_contact_mm2(thread, point)
+            sf = strength / (f / area)
+            if worst is None or sf < worst[0]:
+                worst = (sf, h, thread, t, t_src, f, area, a_src)
+        sf, h, thread, t, t_src, f, area, a_src = worst
+        status, limit = _grade(sf, 1.0, SF_CRUSH)
+        wall = self.cfg.spreaders.wall
+        msg = (f"{h.id}: {point} point of {thread.size} at {t:.2f} N m presses {f:.0f} N on {area:.1f} mm2 ="
+               f" {f / area:.0f} MPa on the {pole} pole" + (f" ({self.fmt(wall)} wall)" if wall else "")
+               + f" against {strength:g} MPa across its wall: safety factor {sf:.2f}")
+        if status != PASS:
+            need = f * sf / SF_CRUSH if sf > 0 else 0.0
+            msg += (("; the point crushes the pole" if status == FAIL else "; little margin against crushing the pole")
+                    + f": a pad (a metal or plastic saddle) under the point, a soft"
+                    f" point (set_screws.point = \"soft\"), a smaller torque (set_screws.torque, about"
+                    f" {need * K_CRUSH * thread.major_mm / 1000.0:.2f} N m for {SF_CRUSH:g}), or a hose clamp"
+                    " round the pole instead")
+        return RuleResult("set-screw-crush", status, sf, limit, "SF", msg,
+                          f"T = K F d, K = {K_CRUSH:g} (standards/holding.py); {t_src}; point area: {a_src};"
+                          f" transverse strength: {s_src}; half the thread strip-out force as the upper"
+                          f" bound; SF under 1 fails, under {SF_CRUSH:g} warns ({COMMON})")
+
+    def rule_mast_retention(self, wind) -> RuleResult:
+        """Sliding (weight) and turning (uneven-gust torque) against clamp-screw friction."""
+        from generators.standards.holding import K_HOLD, friction, preload_n
+        from generators.standards.threads import parse_thread
+
+        mast = wind.mast
+        demand = "" if mast is None else (
+            f"the antenna weighs {mast.weight_n:.0f} N (+ {mast.ice_weight_n:.0f} N ice) and an uneven gust"
+            f" turns it with {mast.mast_torque_nm:.0f} N m")
+        clamps = [h for h in self.plan.holes if h.kind == "clamp"]
+        mc = self.cfg.mast_clamp
+        if mc is None or not clamps:
+            loose = ["the hub"] + [f"the sleeve for {s.mast_designation}" for s in self.sleeve_plans]
+            return RuleResult("mast-retention", WARN, None, SF_RETENTION, "SF",
+                              f"nothing retains {', nor '.join(loose)} on the mast" + (f"; {demand}" if demand else "")
+                              + ": add [mast_clamp] screws, a through bolt or pin, or a stop collar under the hub",
+                              COMMON)
+        mu, mu_src = friction(self.cls)
+        total, t, t_src = 0.0, None, ""
+        for h in clamps:
+            name = h.thread or (self._pocket(h).thread if self._pocket(h) is not None else None)
+            thread = parse_thread(name) if name else mc.thread
+            t, t_src = self._torque(mc, thread, captive=not h.thread)
+            total += 2.0 * mu * self._capped(h, thread, preload_n(t, thread, K_HOLD))
+        r_m = min([self.plan.mast_od_mm] + [s.mast_od_mm for s in self.sleeve_plans]) / 2000.0
+        src = (f"friction 2 mu F per screw (point and opposite wall), mu = {mu:g} ({mu_src}); F = T / (K d),"
+               f" K = {K_HOLD:g} (standards/holding.py); {t_src}; torque from an uneven gust: plan/mast_loads.py;"
+               f" SF under 1 fails when the hub slides, warns when it turns; under {SF_RETENTION:g} warns ({COMMON})")
+        if mast is None:
+            return RuleResult("mast-retention", PASS, None, None, "SF",
+                              f"{len(clamps)} clamp screw(s) hold {total:.0f} N; loads not estimated", src)
+        sf_slide = total / max(mast.weight_n + mast.ice_weight_n, 1e-9)
+        sf_turn = total * r_m / max(mast.mast_torque_nm, 1e-9)
+        sf = min(sf_slide, sf_turn)
+        status = FAIL if sf_slide < 1.0 else WARN if sf < SF_RETENTION else PASS
+        msg = (f"{len(clamps)} {thread.designation} clamp screw(s) at {t:.2f} N m hold {total:.0f} N along the mast"
+               f" and {total * r_m:.1f} N m about it; {demand}: safety factor {sf_slide:.2f} sliding,"
+               f" {sf_turn:.2f} turning")
+        if status != PASS:
+            msg += ("; more or larger clamp screws, a higher clamp torque (mast_clamp.torque) in a metal hub,"
+                    " or a through bolt or pin (a hub that turns on the mast in a gust is not held by friction)")
+        return RuleResult("mast-retention", status, sf, SF_RETENTION, "SF", msg, src)

@@ -1,0 +1,36 @@
+"""What the antenna puts on the mast, as rows in the config's units (report and ``check``)."""
+
+from __future__ import annotations
+
+# Exact by definition: 1 lbf = 4.4482216152605 N (NIST SP 811), 1 ft = 0.3048 m.
+LBF = 4.4482216152605
+FT = 0.3048
+
+ADVICE = ("Compare these with the mast maker's rating for a top load (force and its height), the"
+          " rotator's turning and braking torque, and the clamp or thrust bearing's rating; add the"
+          " mast's own wind load and follow local codes and licensed engineering practice. A tip"
+          " deflection over a tenth of the spreader's length is past the small-deflection theory:"
+          " read it as a pole that bends a lot. An estimate, not a certification.")
+
+
+def _force(n: float, units: str) -> str:
+    return f"{n / LBF:.1f} lbf ({n:.0f} N)" if units == "in" else f"{n:.0f} N"
+
+
+def mast_rows(w: dict, units: str) -> list[list[str]]:
+    """[label, value] per figure of ``check --json``'s ``wind`` section; empty when not estimated."""
+    if w.get("mast_force_n") is None:
+        return []
+    inch = units == "in"
+    area = (f"{w['wind_area_m2'] / FT ** 2:.2f} ft2 ({w['wind_area_m2']:.3f} m2)" if inch
+            else f"{w['wind_area_m2']:.3f} m2")
+    torque = (f"{w['mast_torque_nm'] / (LBF * FT):.0f} ft-lbf ({w['mast_torque_nm']:.0f} N m)" if inch
+              else f"{w['mast_torque_nm']:.0f} N m")
+    defl = (f"{w['tip_deflection_mm'] / 25.4:.1f} in ({w['tip_deflection_mm']:.0f} mm)" if inch
+            else f"{w['tip_deflection_mm']:.0f} mm")
+    return [["wind area, worst direction (spreaders, wires, hub)", area],
+            ["horizontal force on the mast top", _force(w["mast_force_n"], units)],
+            ["torque about the mast from an uneven gust (ASCE 7-16 fig. 27.3-8 case 2)", torque],
+            ["weight of the antenna (poles, wires, hub)", _force(w["weight_n"], units)],
+            ["weight of the ice", _force(w["ice_weight_n"], units)],
+            ["spreader tip deflection in the design wind", defl]]
