@@ -39,6 +39,7 @@ class BuildContext:
     summary: list[str] = field(default_factory=list)
     changes: dict[str, Any] = field(default_factory=dict)  # against the build this one replaces
     volume_mm3: float | None = None
+    meshes: dict[str, Any] = field(default_factory=dict)  # merged meshes by stem, kept for later writers
 
     @property
     def config(self) -> Config:
