@@ -116,13 +116,18 @@ def breakdown(config: str, out: str) -> None:
 
 
 # ---- the harness --------------------------------------------------------------------------
-def run_child(cmd: list[str]) -> tuple[float, int, str]:
+CPU: dict[str, list[float]] = {}  # user + system seconds of each child (its reaped children included)
+
+
+def run_child(cmd: list[str], side: str = "") -> tuple[float, int, str]:
     """Wall time (s), peak RSS (KiB, this one child and its waited children) and stdout."""
     t = time.perf_counter()
     with tempfile.TemporaryFile("w+") as out, tempfile.TemporaryFile("w+") as err:
         p = subprocess.Popen(cmd, cwd=ROOT, stdout=out, stderr=err, text=True)
         _pid, status, usage = os.wait4(p.pid, 0)
         wall = time.perf_counter() - t
+        if side:
+            CPU.setdefault(side, []).append(usage.ru_utime + usage.ru_stime)
         p.returncode = os.waitstatus_to_exitcode(status)
         out.seek(0)
         err.seek(0)
@@ -162,10 +167,10 @@ def main() -> None:
         hub_t, bare_t, hub_mem, bare_mem = [], [], [], []
         result = {}
         for _ in range(args.runs):
-            w, mem, _ = run_child(hubwright_cmd(config, hub_out))
+            w, mem, _ = run_child(hubwright_cmd(config, hub_out), "build")
             hub_t.append(w)
             hub_mem.append(mem)
-            w, mem, text = run_child([sys.executable, me, "--bare", str(keep), str(bare_out)])
+            w, mem, text = run_child([sys.executable, me, "--bare", str(keep), str(bare_out)], "floor")
             bare_t.append(w)
             bare_mem.append(mem)
             result = json.loads(text.strip().splitlines()[-1])
@@ -183,6 +188,9 @@ def main() -> None:
         print(f"  ratio build/floor {hub_s / bare_s:6.2f}   (target <= {TARGET_TIME})")
         print(f"  ratio memory      {hub_m / bare_m:6.2f}   (target <= {TARGET_MEMORY}; the drawing child's"
               " own peak is not in the build's figure)")
+        cpu_b, cpu_f = statistics.median(CPU["build"]), statistics.median(CPU["floor"])
+        print(f"  CPU user+system   build {cpu_b:.2f} s, floor {cpu_f:.2f} s, ratio {cpu_b / cpu_f:.2f}"
+              " (steadier than wall time on a loaded machine; the build's counts the drawing child)")
         print(f"  machine: {os.cpu_count()} cores, load average {os.getloadavg()[0]:.2f} (noisy when > 0.5)")
         _, _, text = run_child([sys.executable, me, "--breakdown", str(config), str(work / "inproc")])
         print("where a build's time goes (in one process, writers one after another):")

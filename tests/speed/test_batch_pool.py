@@ -15,6 +15,8 @@ from generators.config import load_config
 from generators.errors import UserError
 
 ROOT = Path(__file__).resolve().parents[2]
+pytestmark = pytest.mark.slow
+
 GOOD = ("configs/four-spreader-conduit.toml", "configs/six-spreader-portable.toml",
         "configs/six-spreader-printed.toml")
 

@@ -18,6 +18,10 @@ import sys
 import threading
 from pathlib import Path
 
+import pytest
+
+pytestmark = pytest.mark.slow
+
 ROOT = Path(__file__).resolve().parents[2]
 DEMO = ROOT / "configs" / "six-spreader-portable.toml"  # 50 mm mast, 10 deg elevation
 TIMEOUT_S = 300  # per wait: a loaded 2-core machine can take long for one build
