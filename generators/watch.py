@@ -126,9 +126,9 @@ def watch(config: str | Path, out=None, masts: tuple[str, ...] = (), force: bool
         if number == 1:
             _preload_beside_cad()
         yield event
-        if on_wait is not None:
-            on_wait()
-        with waiting():
+        with waiting():  # entered before the waiting is announced: a signal after it is a stop
+            if on_wait is not None:
+                on_wait()
             seen = _wait_for_change(config, seen, poll_s)
 
 
