@@ -23,7 +23,8 @@ WRITERS: tuple[str, ...] = (
     "generators.cad.extras_writer:write_tip_cap",
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
-    "generators.drawings.writer:write_templates",
+    "generators.drawings.writer:write_template_dxf",
+    "generators.drawings.writer:write_template_pdf",
     "generators.drawings.sleeve:write_sleeve_templates",
     "generators.report.writer:write_report",
 )
