@@ -50,7 +50,7 @@ def probes(writers: bool = True) -> Iterator[dict[str, float]]:
         _wrap(jig, "jig_solid", "booleans", spent),
         _wrap(rw, "sleeve_solid", "booleans", spent),
         _wrap(tc, "tip_cap_solid", "booleans", spent),
-        _wrap(gw._Child, "join_into", "wait for the drawing child", spent),
+        _wrap(gw._Child, "join_into", "wait for the drawing children", spent),
         _wrap(cq.Shape, "tessellate", "tessellate", spent),
         _wrap(cq.Shape, "exportStep", "STEP export", spent),
         _wrap(ex, "mesh_of", "mesh (incl. tessellate)", spent),

@@ -186,11 +186,11 @@ def main() -> None:
         print(f"  same solid        volume {result['volume_mm3']:.0f} vs {v_hub:.0f} mm3"
               f" ({(result['volume_mm3'] - v_hub) / v_hub * 100:+.3f} %), {result['solids']} solid(s)")
         print(f"  ratio build/floor {hub_s / bare_s:6.2f}   (target <= {TARGET_TIME})")
-        print(f"  ratio memory      {hub_m / bare_m:6.2f}   (target <= {TARGET_MEMORY}; the drawing child's"
+        print(f"  ratio memory      {hub_m / bare_m:6.2f}   (target <= {TARGET_MEMORY}; the drawing children's"
               " own peak is not in the build's figure)")
         cpu_b, cpu_f = statistics.median(CPU["build"]), statistics.median(CPU["floor"])
         print(f"  CPU user+system   build {cpu_b:.2f} s, floor {cpu_f:.2f} s, ratio {cpu_b / cpu_f:.2f}"
-              " (steadier than wall time on a loaded machine; the build's counts the drawing child)")
+              " (steadier than wall time on a loaded machine; the build's counts the drawing children)")
         print(f"  machine: {os.cpu_count()} cores, load average {os.getloadavg()[0]:.2f} (noisy when > 0.5)")
         _, _, text = run_child([sys.executable, me, "--breakdown", str(config), str(work / "inproc")])
         print("where a build's time goes (in one process, writers one after another):")

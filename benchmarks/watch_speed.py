@@ -63,7 +63,7 @@ def main() -> None:
         print(f"  kernel time of that rebuild   {kernel:6.2f} s (booleans, tessellation, STEP export)")
         print(f"  ratio rebuild/kernel          {wall / kernel:6.2f}   (target <= {TARGET})")
         print(f"  machine: {os.cpu_count()} cores, load average {os.getloadavg()[0]:.2f} (noisy when > 0.5)")
-        print("  last rebuild, parent process (the drawings run in a forked child meanwhile):")
+        print("  last rebuild, parent process (the drawings run in forked children meanwhile):")
         for what, s in sorted(rows[-1].items(), key=lambda kv: -kv[1]):
             if s >= 0.005:
                 print(f"    {what:40s} {s:6.2f} s")
