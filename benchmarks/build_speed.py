@@ -186,8 +186,8 @@ def main() -> None:
         print(f"  same solid        volume {result['volume_mm3']:.0f} vs {v_hub:.0f} mm3"
               f" ({(result['volume_mm3'] - v_hub) / v_hub * 100:+.3f} %), {result['solids']} solid(s)")
         print(f"  ratio build/floor {hub_s / bare_s:6.2f}   (target <= {TARGET_TIME})")
-        print(f"  ratio memory      {hub_m / bare_m:6.2f}   (target <= {TARGET_MEMORY}; the drawing children's"
-              " own peak is not in the build's figure)")
+        print(f"  ratio memory      {hub_m / bare_m:6.2f}   (target <= {TARGET_MEMORY}; the largest of the build's"
+              " processes, its drawing children included, not their sum)")
         cpu_b, cpu_f = statistics.median(CPU["build"]), statistics.median(CPU["floor"])
         print(f"  CPU user+system   build {cpu_b:.2f} s, floor {cpu_f:.2f} s, ratio {cpu_b / cpu_f:.2f}"
               " (steadier than wall time on a loaded machine; the build's counts the drawing children)")
