@@ -1,8 +1,12 @@
 """Build several configs in parallel worker processes; every result comes back as data.
 
-One failing config never stops the others. The workers are spawned (not forked: the
-caller may run a progress-bar thread), handle SIGINT/SIGTERM like the command, die
-with it (PR_SET_PDEATHSIG) and are stopped by it when it is interrupted.
+One failing config never stops the others. The workers are started once per batch and
+take the configs from the pool's queue. Where the platform has it, they are forked from
+a fork server that has already loaded the CAD, mesh and drawing libraries
+(:data:`PRELOAD`), so no worker loads them again; elsewhere they are spawned (never
+forked from the caller, which may run a progress-bar thread). They handle SIGINT/SIGTERM
+like the command, die with it (PR_SET_PDEATHSIG, through the fork server) and are stopped
+by it when it is interrupted.
 """
 
 from __future__ import annotations
@@ -11,9 +15,17 @@ import os
 from collections.abc import Callable
 from concurrent.futures import ProcessPoolExecutor, as_completed
 from dataclasses import dataclass, field
-from multiprocessing import get_context
+from multiprocessing import get_all_start_methods, get_context
 
 from generators import signals
+
+# Loaded once in the fork server, before it forks the workers (names, not imports: this
+# module stays light). A name that fails to load is skipped; the worker loads it itself.
+PRELOAD = ["cadquery", "trimesh", "numpy", "PIL.Image", "pypdfium2", "generators.build",
+           "generators.cad.writer", "generators.cad.extras_writer", "generators.cad.reducer_writer",
+           "generators.drawings.writer", "generators.drawings.pdf", "generators.drawings.sleeve",
+           "generators.drawings.jig_dxf", "generators.report.writer", "generators.report.preview",
+           "generators.report.cutlist_writer", "generators.report.summary"]
 
 
 @dataclass
@@ -95,6 +107,28 @@ def workers_for(n_configs: int) -> int:
     return max(1, min(n_configs, os.cpu_count() or 1))
 
 
+def pool_context():
+    """A fork server with the libraries loaded where the platform has one, else spawn."""
+    if "forkserver" in get_all_start_methods() and not os.environ.get("HUBWRIGHT_SPAWN"):
+        ctx = get_context("forkserver")
+        ctx.set_forkserver_preload(PRELOAD)
+        return ctx
+    return get_context("spawn")
+
+
+def _helper_pids() -> list[int]:
+    """The fork server's and the resource tracker's pids: they would outlive an interrupt."""
+    from multiprocessing import forkserver, resource_tracker
+
+    pids = []
+    for obj, attr in ((getattr(forkserver, "_forkserver", None), "_forkserver_pid"),
+                      (getattr(resource_tracker, "_resource_tracker", None), "_pid")):
+        pid = getattr(obj, attr, None)
+        if pid:
+            pids.append(pid)
+    return pids
+
+
 def build_many(configs: list[str], out: str | None = None, masts: tuple[str, ...] = (), force: bool = False,
                on_result: Callable[[BatchResult], None] | None = None) -> list[BatchResult]:
     """Build each config once, in parallel; the results in the order of ``configs``."""
@@ -106,16 +140,12 @@ def build_many(configs: list[str], out: str | None = None, masts: tuple[str, ...
             on_result(r)
     todo = [c for c in configs if c not in results]
     if todo:
-        pool = ProcessPoolExecutor(max_workers=workers_for(len(todo)), mp_context=get_context("spawn"),
+        pool = ProcessPoolExecutor(max_workers=workers_for(len(todo)), mp_context=pool_context(),
                                    initializer=_worker_start)
 
         def stop_workers() -> None:
             signals.stop_processes(list(getattr(pool, "_processes", None) or {}))
-            from multiprocessing import resource_tracker
-
-            tracker = getattr(resource_tracker, "_resource_tracker", None)
-            if getattr(tracker, "_pid", None):  # it would outlive us and warn on stderr
-                signals.stop_processes([tracker._pid], grace_s=0.0)
+            signals.stop_processes(_helper_pids(), grace_s=0.0)
 
         with signals.on_interrupt(stop_workers), pool:
             futures = {pool.submit(build_one, c, out, masts, force): c for c in todo}

@@ -23,7 +23,8 @@ WRITERS: tuple[str, ...] = (
     "generators.cad.extras_writer:write_tip_cap",
     "generators.cad.reducer_writer:write_reducers",
     "generators.report.cutlist_writer:write_cutlist",
-    "generators.drawings.writer:write_templates",
+    "generators.drawings.writer:write_template_dxf",
+    "generators.drawings.writer:write_template_pdf",
     "generators.drawings.plate_dxf:write_plate_dxf",
     "generators.drawings.sleeve:write_sleeve_templates",
     "generators.report.writer:write_report",
@@ -41,6 +42,7 @@ class BuildContext:
     changes: dict[str, Any] = field(default_factory=dict)  # against the build this one replaces
     volume_mm3: float | None = None
     solid_wall: dict | None = None  # the least wall measured on the cut solid (cad/walls.py)
+    meshes: dict[str, Any] = field(default_factory=dict)  # merged meshes by stem, kept for later writers
 
     @property
     def config(self) -> Config:

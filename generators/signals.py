@@ -116,6 +116,30 @@ def held() -> Iterator[None]:
         signal.pthread_sigmask(signal.SIG_SETMASK, old)
 
 
+class Stopped(Exception):
+    """Raised by a signal inside :func:`raising`."""
+
+    def __init__(self, signum: int):
+        super().__init__(signal.Signals(signum).name)
+        self.signum = signum
+
+
+@contextlib.contextmanager
+def raising() -> Iterator[None]:
+    """Inside the block a SIGINT/SIGTERM raises :class:`Stopped` instead of ending the
+    process: only for plain waiting (no CAD code loading, nothing to clean up), such as a
+    watch between builds. Main thread only."""
+    def _raise(signum, frame):
+        raise Stopped(signum)
+
+    old = {sig: signal.signal(sig, _raise) for sig in _SIGNALS}
+    try:
+        yield
+    finally:
+        for sig, handler in old.items():
+            signal.signal(sig, handler)
+
+
 def stop_processes(pids: list[int], grace_s: float = 3.0) -> None:
     """SIGTERM each process, wait up to ``grace_s`` for all, then SIGKILL what is left."""
     import time

@@ -1,8 +1,11 @@
-"""Run the build writers, the plan-only ones in a forked child beside the CAD ones.
+"""Run the build writers, the plan-only ones in forked children beside the CAD ones.
 
 The drawings need only the plan, so on a machine with two or more cores they are made
-while the parent imports the CAD kernel and cuts the solid; the child is joined before
-the first writer that reads what it wrote (the report).
+while the parent imports the CAD kernel and cuts the solid: the template PDF in one child,
+the DXF sheets and the sleeve templates in another (the PDF is the longest job, so the
+rest must not wait behind it). The children are joined before the first writer that reads
+what they wrote (the report), and what each writer added is merged in the writers' order,
+so the manifest is the same as when every writer runs in this process.
 """
 
 from __future__ import annotations
@@ -16,10 +19,12 @@ import traceback
 from generators import signals
 from generators.errors import UserError
 
-# Writers that read only the plan and the config (never a file another writer made).
-BESIDE_CAD = frozenset({"generators.drawings.writer:write_templates",
-                        "generators.drawings.plate_dxf:write_plate_dxf",
-                        "generators.drawings.sleeve:write_sleeve_templates"})
+# Writers that read only the plan and the config (never a file another writer made), in
+# the groups that share a forked child.
+CHILD_GROUPS = (("generators.drawings.writer:write_template_pdf",),
+                ("generators.drawings.writer:write_template_dxf",
+                 "generators.drawings.sleeve:write_sleeve_templates"))
+BESIDE_CAD = frozenset(spec for group in CHILD_GROUPS for spec in group)
 
 
 def call(spec: str, ctx) -> None:
@@ -30,11 +35,12 @@ def call(spec: str, ctx) -> None:
 def _child_main(specs, ctx, conn) -> None:
     signals.forked_child()  # a signal ends this child at once; the parent cleans up
     try:
-        mark_m, mark_s = set(ctx.manifest), len(ctx.summary)
-        for spec in specs:
+        done = {}
+        for spec in specs:  # what each writer added, to be merged in the writers' order
+            mark_m, mark_s = set(ctx.manifest), len(ctx.summary)
             call(spec, ctx)
-        delta = {k: v for k, v in ctx.manifest.items() if k not in mark_m}
-        conn.send(("ok", delta, ctx.summary[mark_s:]))
+            done[spec] = ({k: v for k, v in ctx.manifest.items() if k not in mark_m}, ctx.summary[mark_s:])
+        conn.send(("ok", done))
     except UserError as exc:
         conn.send(("user", type(exc).__name__, exc.key, exc.problem, exc.accepted))
     except BaseException as exc:  # noqa: BLE001 - reported to the parent as one line
@@ -61,7 +67,8 @@ class _Child:
     def _kill(self) -> None:
         signals.stop_processes([self.proc.pid], grace_s=1.0)
 
-    def join_into(self, ctx) -> None:
+    def join_into(self, ctx) -> dict:
+        """Wait for the child; what each of its writers added (spec -> (manifest, summary))."""
         try:
             message = self.conn.recv()
         except EOFError:
@@ -69,9 +76,7 @@ class _Child:
         self.proc.join()
         signals.unregister(self._kill)
         if message[0] == "ok":
-            ctx.manifest.update(message[1])
-            ctx.summary.extend(message[2])
-            return
+            return message[1]
         if message[0] == "user":
             import generators.errors as errors
 
@@ -89,25 +94,52 @@ class _Child:
         signals.unregister(self._kill)
 
 
+def _merge(writers, done: dict, ctx) -> None:
+    for spec in writers:
+        if spec in done:
+            manifest, summary = done[spec]
+            ctx.manifest.update(manifest)
+            ctx.summary.extend(summary)
+
+
 def run_writers(writers: tuple[str, ...], ctx) -> None:
-    """Call every writer in order; the BESIDE_CAD ones may run early in a child."""
+    """Call every writer in order; the BESIDE_CAD ones may run early in children."""
     early = [s for s in writers if s in BESIDE_CAD]
-    child = _Child(early, ctx) if early and _can_fork() else None
-    seen_early = False
+    children: list[_Child] = []
     try:
+        if early and _can_fork():
+            for group in CHILD_GROUPS:
+                specs = [s for s in early if s in group]
+                if specs:
+                    children.append(_Child(specs, ctx))
+        seen_early = False
         for spec in writers:
-            if spec in BESIDE_CAD and child is not None:
+            if spec in BESIDE_CAD and children:
                 seen_early = True
                 continue
-            if child is not None and seen_early:
-                child.join_into(ctx)
-                child = None
+            if children and seen_early:
+                _join_all(children, writers, ctx)
             call(spec, ctx)
-        if child is not None:
-            child.join_into(ctx)
-            child = None
+        if children:
+            _join_all(children, writers, ctx)
     finally:
-        if child is not None:
+        for child in children:
             child.stop()
 
 
+def _join_all(children: list, writers, ctx) -> None:
+    """Join every child (each one's error raised after all have ended) and merge in order."""
+    done: dict = {}
+    error = None
+    while children:
+        child = children.pop(0)
+        try:
+            done.update(child.join_into(ctx))
+        except BaseException as exc:  # noqa: BLE001 - the others are stopped in run_writers
+            error = error or exc
+            for other in children:
+                other.stop()
+            children.clear()
+    if error is not None:
+        raise error
+    _merge(writers, done, ctx)

@@ -104,9 +104,10 @@ VOLUME_AGREEMENT = 0.005
 
 
 def write_solid_files(solid: cq.Shape, folder: Path, stem: str, tolerance: float,
-                      angular_deg: float) -> dict[str, float]:
+                      angular_deg: float, keep: dict | None = None) -> dict[str, float]:
     """STEP, STL and 3MF of one solid, the mesh checked against the solid's volume;
-    returns both volumes for the manifest."""
+    returns both volumes for the manifest. With ``keep``, the mesh is stored there under
+    ``stem`` for later writers (so nothing reads the STL back)."""
     write_step(solid, folder / f"{stem}.step")
     mesh = mesh_of(solid, tolerance, angular_deg, feature=stem)
     v_solid, v_mesh = float(solid.Volume()), float(mesh.volume)
@@ -118,4 +119,6 @@ def write_solid_files(solid: cq.Shape, folder: Path, stem: str, tolerance: float
                           f" ({v_solid:.0f} mm3)", "a bug: please report it with the saved config")
     write_stl(mesh, folder / f"{stem}.stl")
     write_3mf(mesh, folder / f"{stem}.3mf")
+    if keep is not None:
+        keep[stem] = mesh
     return {"solid_volume_mm3": v_solid, "mesh_volume_mm3": v_mesh}

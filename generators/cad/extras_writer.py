@@ -97,7 +97,9 @@ def write_print_checks(ctx) -> None:
         min_wall_mm,
     )
 
-    mesh = trimesh.load(ctx.folder / "hub.stl", force="mesh")
+    mesh = ctx.meshes.get("hub")  # the mesh hub.stl was written from, still in memory
+    if mesh is None:
+        mesh = trimesh.load(ctx.folder / "hub.stl", force="mesh")
     problems = print_problems(mesh)
     nuts: dict[tuple, int] = {}
     for h in ctx.plan.holes:

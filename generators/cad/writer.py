@@ -9,7 +9,8 @@ from generators.cad.solids import hub_solid
 def write_hub(ctx) -> None:
     out = ctx.config.output
     solid = hub_solid(ctx.plan)
-    vols = write_solid_files(solid, ctx.folder, ctx.plan.file_stem, out.tolerance, out.angular_tolerance)
+    vols = write_solid_files(solid, ctx.folder, ctx.plan.file_stem, out.tolerance, out.angular_tolerance,
+                             keep=ctx.meshes)
     v_solid, v_mesh = vols["solid_volume_mm3"], vols["mesh_volume_mm3"]
     ctx.volume_mm3 = v_solid
     ctx.solid_wall = solid_wall(solid, ctx)

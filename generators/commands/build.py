@@ -15,6 +15,8 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--mast", metavar="SIZE", action="append", default=[],
                    help="also make a reducer sleeve for this mast (repeatable)")
     p.add_argument("--force", action="store_true", help="write even when a design rule fails")
+    p.add_argument("--watch", action="store_true",
+                   help="one CONFIG: build, then rebuild each time the file changes (Ctrl-C to stop)")
 
 
 def build_checked(config_path, out=None, masts=(), force=False):
@@ -67,6 +69,12 @@ def run(args: argparse.Namespace) -> int:
 
     _check_out(args.out)
     configs = args.configs or [str(default_config())]
+    if getattr(args, "watch", False):
+        if len(configs) != 1:
+            raise UserError("--watch", f"given {len(configs)} configs", "exactly one CONFIG to watch")
+        from generators.commands.watch_view import run_watch
+
+        return run_watch(configs[0], args)
     if len(configs) > 1:
         return run_batch(configs, args)
     result = build_checked(configs[0], args.out, masts=tuple(args.mast), force=args.force)

@@ -24,21 +24,34 @@ def paper_for(cfg) -> str:
     return "letter" if cfg.units == "in" else "a4"
 
 
-def write_templates(ctx) -> None:
-    from generators.drawings.dxf import write_sheet_dxf
-    from generators.drawings.pdf import write_pdf
-
+def _layout(ctx):
+    """The sheets and pages of a machined hub's templates, or None for a printed hub."""
     cfg, plan = ctx.config, ctx.plan
     if plan.process != "machined":
-        ctx.manifest["templates"] = []
-        ctx.manifest["templates_pdf"] = {"made": False, "reason": "a printed hub's holes are printed, not drilled"}
-        ctx.summary.append("  templates none: a printed hub's holes are printed, not drilled")
-        return
-    folder = ctx.folder / FOLDER
-    folder.mkdir(exist_ok=True)
+        return None
     sheets = build_sheets(plan, cfg, ctx.design.operations)
     paper = paper_for(cfg)
-    pages = P.layout(sheets, paper)
+    return sheets, paper, P.layout(sheets, paper)
+
+
+def write_templates(ctx) -> None:
+    """Both halves in order: the DXF sheets, then the PDF and its previews."""
+    write_template_dxf(ctx)
+    write_template_pdf(ctx)
+
+
+def write_template_dxf(ctx) -> None:
+    """templates/<face>.dxf, one a face with holes; ctx.manifest["templates"]."""
+    from generators.drawings.dxf import write_sheet_dxf
+
+    laid = _layout(ctx)
+    if laid is None:
+        ctx.manifest["templates"] = []
+        return
+    sheets, _paper, pages = laid
+    cfg, plan = ctx.config, ctx.plan
+    folder = ctx.folder / FOLDER
+    folder.mkdir(exist_ok=True)
     records = []
     for sheet in sheets:
         dxf = folder / f"{sheet.name}.dxf"
@@ -51,8 +64,23 @@ def write_templates(ctx) -> None:
             "holes": {hid: [round(u, 6), round(v, 6)] for hid, (u, v) in sheet.positions.items()},
             "pages": [p.number for p in pages if p.sheet is sheet],
         })
-    previews = write_pdf(pages, folder / PDF, folder / PREVIEW_STEM, plan.name)
     ctx.manifest["templates"] = records  # one DXF sheet a face with holes
+
+
+def write_template_pdf(ctx) -> None:
+    """templates/templates.pdf at 1:1 and a PNG preview a page; ctx.manifest["templates_pdf"]."""
+    from generators.drawings.pdf import write_pdf
+
+    laid = _layout(ctx)
+    if laid is None:
+        ctx.manifest["templates_pdf"] = {"made": False, "reason": "a printed hub's holes are printed, not drilled"}
+        ctx.summary.append("  templates none: a printed hub's holes are printed, not drilled")
+        return
+    sheets, paper, pages = laid
+    cfg, plan = ctx.config, ctx.plan
+    folder = ctx.folder / FOLDER
+    folder.mkdir(exist_ok=True)
+    previews = write_pdf(pages, folder / PDF, folder / PREVIEW_STEM, plan.name)
     ctx.manifest["templates_pdf"] = {
         "made": True,
         "file": f"{FOLDER}/{PDF}",

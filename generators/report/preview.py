@@ -26,6 +26,11 @@ def read_stl(path: Path) -> np.ndarray:
     return np.frombuffer(data, dtype=rec, count=n, offset=84)["v"].astype(np.float64)
 
 
+def stl_triangles(mesh) -> np.ndarray:
+    """The triangles of an in-memory mesh exactly as its binary STL stores them (float32)."""
+    return np.asarray(mesh.triangles, dtype=np.float32).astype(np.float64)
+
+
 def _split_long(tris: np.ndarray, parts: float = 12.0) -> np.ndarray:
     """Split long triangles (the fans of the flat faces) so far-to-near painting by centroid
     does not let a long triangle cover a nearer one."""
@@ -46,12 +51,14 @@ def _frame():
     return view, right, up
 
 
-def render_preview(stl: Path, png: Path, title: str, labels: dict[str, tuple] | None = None,
+def render_preview(stl: Path | np.ndarray, png: Path, title: str, labels: dict[str, tuple] | None = None,
                    size_in: tuple[float, float] = (6.0, 4.5), dpi: int = 110) -> None:
-    """Write ``png``: the hub seen from above and to the side, hole labels where visible."""
+    """Write ``png``: the hub seen from above and to the side, hole labels where visible.
+
+    ``stl`` is the STL file or its triangles already in memory (:func:`stl_triangles`)."""
     from PIL import Image, ImageDraw, ImageFont
 
-    tris = _split_long(read_stl(stl))
+    tris = _split_long(stl if isinstance(stl, np.ndarray) else read_stl(stl))
     view, right, up = _frame()
     normals = np.cross(tris[:, 1] - tris[:, 0], tris[:, 2] - tris[:, 0])
     lengths = np.linalg.norm(normals, axis=1)

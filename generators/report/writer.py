@@ -38,9 +38,10 @@ def write_report(ctx) -> None:
     preview = None
     stl = ctx.folder / f"{plan.file_stem}.stl"
     if stl.is_file():
-        from generators.report.preview import render_preview
+        from generators.report.preview import render_preview, stl_triangles
 
-        render_preview(stl, ctx.folder / PREVIEW, f"{plan.name}: {plan.mast_designation} mast",
+        mesh = getattr(ctx, "meshes", {}).get("hub")
+        render_preview(stl if mesh is None else stl_triangles(mesh), ctx.folder / PREVIEW, f"{plan.name}: {plan.mast_designation} mast",
                        labels=_labels(plan))
         preview = PREVIEW
     manifest = plan_record(plan, ctx.volume_mm3)
