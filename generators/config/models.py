@@ -129,6 +129,17 @@ class Spreaders(Section):
         return self
 
 
+class SocketOverride(Section):
+    """One socket made unlike the rest: ``index`` is the spreader number (socket S<index>)."""
+
+    index: Annotated[int, Field(ge=1)]
+    diameter: Annotated[Length, Field(ge=2)] | None = None  # the pole OD in this socket
+    fit: Annotated[Length, Field(ge=0, le=10)] | None = None
+    # -45 to 45 deg: a negative elevation falls outward (alternate spreaders of a spider frame)
+    elevation: Annotated[Angle, Field(ge=-45, le=45)] | None = None
+    azimuth: Azimuth | None = None
+
+
 class SetScrews(Section):
     thread: ThreadSpec
     per_spreader: Literal[0, 1, 2] = 1
@@ -236,6 +247,7 @@ class Config(Section):
     reducers: tuple[Reducer, ...] = ()
     print: Print = Print()
     tip_cap: TipCap | None = None
+    sockets: tuple[SocketOverride, ...] = ()
 
     @field_validator("name")
     @classmethod
@@ -254,4 +266,24 @@ class Config(Section):
             if hole.id in seen:
                 raise ValueError(f"holes: hole id {hole.id!r} is used twice (each [[holes]] id must be unique)")
             seen.add(hole.id)
+        return self
+
+    @model_validator(mode="after")
+    def _socket_indexes(self):
+        seen = set()
+        n = self.spreaders.count
+        for k, s in enumerate(self.sockets):
+            if s.index > n:
+                raise UserError(f"sockets[{k}].index", f"there is no socket S{s.index}",
+                                f"1 to {n} (spreaders.count)")
+            if s.index in seen:
+                raise UserError(f"sockets[{k}].index", f"socket S{s.index} is overridden twice",
+                                "one [[sockets]] table per index")
+            if s.diameter is not None and self.spreaders.inner_diameter is not None:
+                raise UserError(f"sockets[{k}].diameter", "a pole of its own size with one"
+                                " spreaders.inner_diameter for all", "give spreaders.wall instead")
+            if s.diameter is not None and self.spreaders.wall is not None and 2 * self.spreaders.wall >= s.diameter:
+                raise UserError(f"sockets[{k}].diameter", "two spreaders.wall are thicker than this pole",
+                                "a larger diameter or a thinner wall")
+            seen.add(s.index)
         return self
