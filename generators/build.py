@@ -132,6 +132,13 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
                                options={"masts": d.masts, "force": force})
             ctx.manifest["checks"] = checks
             ctx.manifest["operations"] = d.operation_records()
+            if d.bed_fits:
+                bed = cfg.print.bed
+                ctx.manifest["print_bed"] = {
+                    "bed_mm": [round(v, 3) for v in bed],
+                    "parts": [{"part": f.part, "fits": f.fits, "turn_deg": round(f.angle_deg, 3),
+                               "size_mm": [round(v, 3) for v in f.size_mm], "margin_mm": round(f.margin_mm, 3)}
+                              for f in d.bed_fits]}
             ctx.summary.extend(check_summary(checks))
             run_writers(WRITERS, ctx)
             record = plan_record(d.plan, ctx.volume_mm3)

@@ -214,7 +214,17 @@ class Reducer(Section):
     length: PositiveLength | None = None  # default: hub.thickness
 
 
+def _bed(value, info: ValidationInfo):
+    from generators.config.bed import parse_bed
+
+    if isinstance(value, tuple):
+        return value
+    return parse_bed(value, info.field_name or "bed", _units(info))
+
+
 class Print(Section):
+    # the printer's build volume, width x depth x height: "250 x 210 x 210 mm"
+    bed: Annotated[tuple[float, float, float], BeforeValidator(_wrap(_bed))] | None = None
     hole_compensation: Annotated[Length, Field(ge=0, le=2)] = 0.3
     line_width: Annotated[Length, Field(gt=0, le=2)] = 0.45
     insert_hole: PositiveLength | None = None

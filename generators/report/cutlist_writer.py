@@ -67,9 +67,15 @@ def write_cutlist(ctx) -> None:
                    "cut_length_mm": round(c.cut_length_mm, 3)} for c in cases],
     }
     n = len(primary.lines)
-    ctx.summary.append(f"  cut    {n} spreaders x {format_both(primary.cut_length_mm, units)} from the"
-                       f" {primary.stop} to the tip, {format_both(primary.tip_allowance_mm, units)}"
-                       f" allowance included -> {CUTLIST}")
+    distinct = sorted({round(ln.cut_length_mm, 1) for ln in primary.lines})
+    if len(distinct) > 1:  # per-socket sizes or angles: the lengths differ
+        ctx.summary.append("  cut    " + ", ".join(f"S{ln.spreader} {format_both(ln.cut_length_mm, units)}"
+                                                   for ln in primary.lines)
+                           + f" from the {primary.stop} to the tip -> {CUTLIST}")
+    else:
+        ctx.summary.append(f"  cut    {n} spreaders x {format_both(primary.cut_length_mm, units)} from the"
+                           f" {primary.stop} to the tip, {format_both(primary.tip_allowance_mm, units)}"
+                           f" allowance included -> {CUTLIST}")
     for c in cases[1:]:
         ctx.summary.append(f"         on the {c.stop}: {format_both(c.cut_length_mm, units)};"
                            f" {_difference(c.cut_length_mm, primary.cut_length_mm, units, 'the cut for the ' + primary.stop)}")

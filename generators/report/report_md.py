@@ -131,6 +131,10 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
         stop = plan.spreaders[0].stop
         rows.append(["sockets", f"{len(sockets)} x {md.both(sockets[0].diameter_mm)},"
                                 f" {md.L(sockets[0].depth_mm)} deep; the pole stops at the {stop}"])
+        for o in cfg.sockets:  # [[sockets]] overrides: each such socket as planned
+            s, h = plan.spreaders[o.index - 1], plan.hole(f"S{o.index}")
+            rows.append([f"socket {h.id}", f"{md.both(h.diameter_mm)} for a {md.L(s.diameter_mm)} pole,"
+                                           f" azimuth {s.azimuth_deg % 360:g} deg, elevation {s.elevation_deg:g} deg"])
     files = sorted((manifest.get("files") or {}).keys())
     if files:
         rows.append(["files", ", ".join(files) + ", manifest.json"])
@@ -176,9 +180,9 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     md.add("## Spreader cut list", "")
     spreaders = manifest.get("spreaders") or []
     if cut and any("cut_length_mm" in s for s in spreaders):
-        rows = [[str(s["id"]), f"{s['azimuth_deg']:g} deg", md.both(s["cut_length_mm"]), s.get("cut_stop", s.get("stop", ""))]
-                for s in spreaders]
-        md.table(["spreader", "azimuth", "cut length", "measured from"], rows)
+        rows = [[str(s["id"]), f"{s['azimuth_deg']:g} deg", f"{s['elevation_deg']:g} deg",
+                 md.both(s["cut_length_mm"]), s.get("cut_stop", s.get("stop", ""))] for s in spreaders]
+        md.table(["spreader", "azimuth", "elevation", "cut length", "measured from"], rows)
         if cut.get("tip_allowance_mm") is not None:
             md.add(f"Lengths include {md.L(cut['tip_allowance_mm'])} tip allowance; tips at"
                    f" {md.both(cut['tip_radius_mm'])} from the mast axis. File: `{cut.get('file', '')}`.", "")
@@ -287,8 +291,11 @@ def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
         extras.setdefault(key, []).append(h.id)
     for (item, size, note), ids in extras.items():
         rows.append([str(len(ids)), item, size, f"{note} ({', '.join(ids)})"])
-    rows.append([str(cfg.spreaders.count), "spreader pole", f"{md.L(cfg.spreaders.diameter)} OD at the hub",
-                 "see the cut list"])
+    by_od: dict[float, int] = {}
+    for s in plan.spreaders:
+        by_od[s.diameter_mm] = by_od.get(s.diameter_mm, 0) + 1
+    for od, n in by_od.items():
+        rows.append([str(n), "spreader pole", f"{md.L(od)} OD at the hub", "see the cut list"])
     return rows
 
 
