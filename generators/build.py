@@ -25,6 +25,8 @@ WRITERS: tuple[str, ...] = (
     "generators.report.cutlist_writer:write_cutlist",
     "generators.drawings.writer:write_templates",
     "generators.drawings.sleeve:write_sleeve_templates",
+    "generators.report.frame_png:write_frame_png",
+    "generators.cad.frame_writer:write_assembly",
     "generators.report.writer:write_report",
 )
 

@@ -18,7 +18,8 @@ from generators.errors import UserError
 
 # Writers that read only the plan and the config (never a file another writer made).
 BESIDE_CAD = frozenset({"generators.drawings.writer:write_templates",
-                        "generators.drawings.sleeve:write_sleeve_templates"})
+                        "generators.drawings.sleeve:write_sleeve_templates",
+                        "generators.report.frame_png:write_frame_png"})
 
 
 def call(spec: str, ctx) -> None:

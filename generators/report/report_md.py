@@ -55,6 +55,26 @@ class _Md:
         self.add("")
 
 
+def frame_section(md: _Md, manifest: dict) -> None:
+    """The whole frame: frame.png and assembly.step, each tip's point and height."""
+    frame, assembly = manifest.get("frame"), manifest.get("assembly")
+    if not frame and not assembly:
+        return
+    md.add("## The frame", "")
+    files = [f"`{x['file']}`" for x in (frame, assembly) if x]
+    md.add("The hub with a mast stub, each spreader from its stop to its cut end and the wires between"
+           f" the tips: {' and '.join(files)}.", "")
+    if frame:
+        md.add(f"![the frame, top and side view]({frame['file']})", "")
+        rows = [[f"S{t['spreader']}", md.both(t["tip_mm"][0]), md.both(t["tip_mm"][1]), md.both(t["height_mm"]),
+                 md.both(t["cut_length_mm"])] for t in frame["tips"]]
+        md.table(["tip", "x", "y", "height above the bottom face", "cut length"], rows)
+        for w in frame.get("wires") or []:
+            md.add(f"- wire S{w['from']} to S{w['to']}: {md.both(w['length_mm'])} tip to tip (straight)")
+        if frame.get("wires"):
+            md.add("")
+
+
 def schedule_sections(d) -> list[tuple[int, str, list]]:
     """(stage, face id, operations) in working order: every face's marking and bore first,
     then the sockets, then the holes that break into them; step numbers as on the templates."""
@@ -124,7 +144,9 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
         ["mast", f"{plan.mast_designation}, OD {md.both(plan.mast_od_mm)}"],
         ["hub", f"{body.style}, {size}, {md.both(body.thickness_mm)} thick, {mat.name} ({plan.process})"],
         ["bore", f"{md.both(plan.bore_mm)} through"],
-        ["spreaders", f"{sp.count} x {md.both(sp.diameter)} poles at {sp.elevation:g} deg elevation,"
+        ["spreaders", f"{sp.count} x {md.both(sp.diameter)} poles at {sp.elevation:g} deg elevation"
+                      + (f" ({len(cfg.sockets)} set apart in [[sockets]], below)," if cfg.sockets else ",")
+                      +
                       f" first at {sp.first_azimuth:g} deg azimuth"],
     ]
     if sockets:
@@ -192,6 +214,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
             md.add("")
     else:
         md.add("No cut list in this build (it needs spreaders.tip_radius or spreaders.tip_spacing).", "")
+    frame_section(md, manifest)
 
     md.add("## Reducer sleeves", "")
     reducers = manifest.get("reducers") or []
