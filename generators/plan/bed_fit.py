@@ -96,8 +96,10 @@ def check_bed(cfg, plan, sleeves, tip_cap) -> tuple[BedFit, ...]:
             fixes = ("split the hub into halves, a smaller hub (hub.across_flats /"
                      " hub.diameter, hub.thickness), or another bed" if part == "hub" else
                      f"a smaller {part} or another bed")
-            raise UserError("print.bed", f"the {part} ({fmt(w)} x {fmt(d)} x {fmt(height)}, at best"
-                            f" {fmt(fit.size_mm[0])} x {fmt(fit.size_mm[1])} turned {fit.angle_deg:.1f} deg)"
+            turned = ""
+            if max(abs(fit.size_mm[0] - w), abs(fit.size_mm[1] - d)) > 0.1:  # turning helps, not enough
+                turned = f", at best {fmt(fit.size_mm[0])} x {fmt(fit.size_mm[1])} turned {fit.angle_deg:.1f} deg"
+            raise UserError("print.bed", f"the {part} ({fmt(w)} x {fmt(d)} x {fmt(height)}{turned})"
                             f" does not fit the {fmt(bed[0])} x {fmt(bed[1])} x {fmt(bed[2])} bed", fixes)
         fits.append(fit)
     return tuple(fits)
