@@ -135,7 +135,10 @@ def cut_case(cfg: Config, plan: HubPlan, stop: str, stop_kind: str, stop_radius:
 
 
 def _pole_end(plan: HubPlan, s, stop_radius: float, blind: bool) -> tuple[float, bool]:
-    """One pole's inner end radius, against its nearest neighbour in azimuth."""
+    """One pole's inner end radius, against its nearest neighbour in azimuth. A blind
+    socket's floor is the pole's own (it moves in with the socket's elevation)."""
+    if blind:
+        stop_radius = s.stop_radius_mm
     others = [o for o in plan.spreaders if o.id != s.id]
     gap = lambda o: abs(((o.azimuth_deg - s.azimuth_deg + 180) % 360) - 180)  # noqa: E731
     near = min(others, key=gap) if others else None

@@ -42,6 +42,15 @@ def test_equal_cut_lengths_by_hand():
     assert [ln.cut_length_mm for ln in lines] == pytest.approx([hand] * 4, abs=1e-6)
 
 
+def test_a_socket_of_its_own_angle_cut_to_its_own_length():
+    # S2 at -8 deg: its floor is 85 - 45 cos 8 from the axis, its run to the tip longer by 1 / cos 8
+    raw = spider_raw()
+    raw["sockets"][0]["elevation"] = -8
+    lines = {ln.spreader: ln.cut_length_mm for ln in _design(raw).cut_cases[0].lines}
+    assert lines[2] == pytest.approx(blind_cut_mm(85.0, 45.0, -8.0, 2600.0, 30.0), abs=1e-6)
+    assert lines[1] == pytest.approx(blind_cut_mm(85.0, 45.0, 12.0, 2600.0, 30.0), abs=1e-6)
+
+
 def test_one_set_screw_over_each_socket_at_its_own_angle():
     d = _design(spider_raw())
     for s in d.plan.spreaders:
