@@ -27,6 +27,8 @@ WRITERS: tuple[str, ...] = (
     "generators.drawings.writer:write_template_pdf",
     "generators.drawings.plate_dxf:write_plate_dxf",
     "generators.drawings.sleeve:write_sleeve_templates",
+    "generators.report.frame_png:write_frame_png",
+    "generators.cad.frame_writer:write_assembly",
     "generators.report.writer:write_report",
 )
 
@@ -136,6 +138,13 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
                                options={"masts": d.masts, "force": force})
             ctx.manifest["checks"] = checks
             ctx.manifest["operations"] = d.operation_records()
+            if d.bed_fits:
+                bed = cfg.print.bed
+                ctx.manifest["print_bed"] = {
+                    "bed_mm": [round(v, 3) for v in bed],
+                    "parts": [{"part": f.part, "fits": f.fits, "turn_deg": round(f.angle_deg, 3),
+                               "size_mm": [round(v, 3) for v in f.size_mm], "margin_mm": round(f.margin_mm, 3)}
+                              for f in d.bed_fits]}
             ctx.summary.extend(check_summary(checks))
             run_writers(WRITERS, ctx)
             record = plan_record(d.plan, ctx.volume_mm3)

@@ -30,6 +30,9 @@ class Design:
     operations: tuple  # Operation, hub faces in plan order
     sleeve_operations: tuple  # (sleeve stem, tuple of Operation)
     plate: object | None = None  # plan.plate.PlateLayout of a plate hub (its U-bolts and stops)
+    jigs: tuple = ()  # JigPlan per distinct socket angle; ``jig`` is the first
+    frame: object | None = None  # FramePlan: tip points, tubes and wires of the whole antenna
+    bed_fits: tuple = ()  # BedFit per printed part when [print] bed is given
 
     @property
     def checks_json(self) -> dict:
@@ -47,10 +50,12 @@ class Design:
 
 def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
     """The whole design, or a ``UserError`` naming what cannot be built."""
+    from generators.plan.bed_fit import check_bed
     from generators.plan.cutlist import cut_list
+    from generators.plan.frame import frame_plan
     from generators.plan.holes import material_class
     from generators.plan.hub import build_plan
-    from generators.plan.jig import jig_plan, jig_reason
+    from generators.plan.jig import jig_plans, jig_reason
     from generators.plan.measured_walls import measure_walls
     from generators.plan.operations import plan_operations
     from generators.plan.reducer import plan_sleeves
@@ -67,12 +72,17 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
     series = drill_series(cfg)
     mclass = material_class(cfg.hub.material)
     sleeve_plans = tuple((s, sleeve_as_plan(plan, s)) for s in sleeves)
+    tip_cap = tip_cap_plan(cfg)
+    bed_fits = check_bed(cfg, plan, sleeves, tip_cap)
     walls = tuple(measure_walls(plan))
     checks = evaluate(cfg, plan, sleeves, walls)
+    cut_cases = tuple(cut_list(cfg, plan, sleeves))
+    jigs = jig_plans(plan, cfg)
     return Design(
         config=cfg, masts=masts, plan=plan, sleeves=sleeves, sleeve_plans=sleeve_plans,
-        cut_cases=tuple(cut_list(cfg, plan, sleeves)), jig=jig_plan(plan, cfg), jig_reason=jig_reason(plan, cfg),
-        tip_cap=tip_cap_plan(cfg), checks=checks, walls=walls, series=series, material_class=mclass,
+        cut_cases=cut_cases, jig=jigs[0] if jigs else None, jig_reason=jig_reason(plan, cfg), jigs=jigs,
+        frame=frame_plan(plan, cut_cases), bed_fits=bed_fits,
+        tip_cap=tip_cap, checks=checks, walls=walls, series=series, material_class=mclass,
         operations=plan_operations(plan, cfg, series, mclass),
         sleeve_operations=tuple((s.stem, plan_operations(sp, cfg, series, mclass)) for s, sp in sleeve_plans),
     )

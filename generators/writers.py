@@ -21,8 +21,10 @@ from generators.errors import UserError
 
 # Writers that read only the plan and the config (never a file another writer made), in
 # the groups that share a forked child.
-CHILD_GROUPS = (("generators.drawings.writer:write_template_pdf",),
+CHILD_GROUPS = (("generators.drawings.writer:write_template_pdf",
+                 "generators.report.frame_png:write_frame_png"),
                 ("generators.drawings.writer:write_template_dxf",
+                 "generators.drawings.plate_dxf:write_plate_dxf",
                  "generators.drawings.sleeve:write_sleeve_templates"))
 BESIDE_CAD = frozenset(spec for group in CHILD_GROUPS for spec in group)
 

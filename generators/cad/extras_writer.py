@@ -13,39 +13,51 @@ def _r(x: float) -> float:
 
 
 def write_jig(ctx) -> None:
-    """jig.step, jig.stl and jig.dxf; ctx.manifest["jig"]."""
+    """jig.step, jig.stl and jig.dxf (and jig-<angle>deg.* for each further socket angle);
+    ctx.manifest["jig"] (the first) and ["jigs"] (all)."""
     plan, cfg = ctx.plan, ctx.config
-    jig = ctx.design.jig
-    if jig is None:
+    jigs = ctx.design.jigs or ((ctx.design.jig,) if ctx.design.jig is not None else ())
+    if not jigs:
         reason = ctx.design.jig_reason
-        if plan.process == "machined" and cfg.spreaders.elevation > 0:
+        if plan.process == "machined" and any(abs(s.elevation_deg) > 0 for s in plan.spreaders):
             ctx.manifest["jig"] = {"made": False, "reason": reason}
             ctx.summary.append(f"  jig    none: {reason}")
         return
     from generators.cad.jig import jig_solid
 
     out = cfg.output
-    solid = jig_solid(jig)
-    write_step(solid, ctx.folder / "jig.step")
-    write_stl(mesh_of(solid, out.tolerance, out.angular_tolerance, feature="jig"), ctx.folder / "jig.stl")
-    ctx.manifest["jig"] = {
-        "made": True,
-        "files": ["jig.step", "jig.stl", "jig.dxf"],
-        "wedge_angle_deg": _r(jig.wedge_angle_deg),
-        "width_mm": _r(jig.width_mm),
-        "slope_length_mm": _r(jig.slope_length_mm),
-        "base_length_mm": _r(jig.base_length_mm),
-        "low_height_mm": _r(jig.low_height_mm),
-        "high_height_mm": _r(jig.high_height_mm),
-        "fence_height_mm": _r(jig.fence_height_mm),
-        "fence_thickness_mm": _r(jig.fence_thickness_mm),
-        "rests_on": {hole: face for hole, face in jig.rests_on},
-        "setup": ("lay the hub on the flat opposite the socket to drill, bottom face against the fence;"
-                  " the socket axis is then vertical under the drill; clamp the jig to the table"),
-        "volume_mm3": round(float(solid.Volume()), 1),
-    }
-    ctx.summary.append(f"  jig    {jig.wedge_angle_deg:g} deg wedge, {format_both(jig.width_mm, cfg.units)} wide"
-                       " (jig.step, jig.stl, jig.dxf): drill each socket with the hub on it")
+    records = []
+    for jig in jigs:
+        solid = jig_solid(jig)
+        write_step(solid, ctx.folder / f"{jig.stem}.step")
+        write_stl(mesh_of(solid, out.tolerance, out.angular_tolerance, feature="jig"),
+                  ctx.folder / f"{jig.stem}.stl")
+        setup = ("lay the hub on the flat opposite the socket to drill, bottom face against the fence;"
+                 " the socket axis is then vertical under the drill; clamp the jig to the table")
+        if jig.flipped:
+            setup += (f"; {', '.join(jig.flipped)} fall outward: drill them with the hub upside down"
+                      " (top face against the fence)")
+        records.append({
+            "made": True,
+            "files": [f"{jig.stem}.step", f"{jig.stem}.stl", f"{jig.stem}.dxf"],
+            "wedge_angle_deg": _r(jig.wedge_angle_deg),
+            "width_mm": _r(jig.width_mm),
+            "slope_length_mm": _r(jig.slope_length_mm),
+            "base_length_mm": _r(jig.base_length_mm),
+            "low_height_mm": _r(jig.low_height_mm),
+            "high_height_mm": _r(jig.high_height_mm),
+            "fence_height_mm": _r(jig.fence_height_mm),
+            "fence_thickness_mm": _r(jig.fence_thickness_mm),
+            "rests_on": {hole: face for hole, face in jig.rests_on},
+            "upside_down": list(jig.flipped),
+            "setup": setup,
+            "volume_mm3": round(float(solid.Volume()), 1),
+        })
+        ctx.summary.append(f"  jig    {jig.wedge_angle_deg:g} deg wedge, {format_both(jig.width_mm, cfg.units)}"
+                           f" wide ({jig.stem}.step, .stl, .dxf): drill "
+                           f"{', '.join(h for h, _ in jig.rests_on)} with the hub on it")
+    ctx.manifest["jig"] = records[0]
+    ctx.manifest["jigs"] = records
 
 
 def write_tip_cap(ctx) -> None:

@@ -143,6 +143,17 @@ class Spreaders(Section):
         return self
 
 
+class SocketOverride(Section):
+    """One socket made unlike the rest: ``index`` is the spreader number (socket S<index>)."""
+
+    index: Annotated[int, Field(ge=1)]
+    diameter: Annotated[Length, Field(ge=2)] | None = None  # the pole OD in this socket
+    fit: Annotated[Length, Field(ge=0, le=10)] | None = None
+    # -45 to 45 deg: a negative elevation falls outward (alternate spreaders of a spider frame)
+    elevation: Annotated[Angle, Field(ge=-45, le=45)] | None = None
+    azimuth: Azimuth | None = None
+
+
 class SetScrews(Section):
     thread: ThreadSpec
     per_spreader: Literal[0, 1, 2] = 1
@@ -241,7 +252,17 @@ class Reducer(Section):
     length: PositiveLength | None = None  # default: hub.thickness
 
 
+def _bed(value, info: ValidationInfo):
+    from generators.config.bed import parse_bed
+
+    if isinstance(value, tuple):
+        return value
+    return parse_bed(value, info.field_name or "bed", _units(info))
+
+
 class Print(Section):
+    # the printer's build volume, width x depth x height: "250 x 210 x 210 mm"
+    bed: Annotated[tuple[float, float, float], BeforeValidator(_wrap(_bed))] | None = None
     hole_compensation: Annotated[Length, Field(ge=0, le=2)] = 0.3
     line_width: Annotated[Length, Field(gt=0, le=2)] = 0.45
     insert_hole: PositiveLength | None = None
@@ -275,6 +296,7 @@ class Config(Section):
     print: Print = Print()
     tip_cap: TipCap | None = None
     plate: Plate | None = None
+    sockets: tuple[SocketOverride, ...] = ()
 
     @field_validator("name")
     @classmethod
@@ -299,4 +321,24 @@ class Config(Section):
             if hole.id in seen:
                 raise ValueError(f"holes: hole id {hole.id!r} is used twice (each [[holes]] id must be unique)")
             seen.add(hole.id)
+        return self
+
+    @model_validator(mode="after")
+    def _socket_indexes(self):
+        seen = set()
+        n = self.spreaders.count
+        for k, s in enumerate(self.sockets):
+            if s.index > n:
+                raise UserError(f"sockets[{k}].index", f"there is no socket S{s.index}",
+                                f"1 to {n} (spreaders.count)")
+            if s.index in seen:
+                raise UserError(f"sockets[{k}].index", f"socket S{s.index} is overridden twice",
+                                "one [[sockets]] table per index")
+            if s.diameter is not None and self.spreaders.inner_diameter is not None:
+                raise UserError(f"sockets[{k}].diameter", "a pole of its own size with one"
+                                " spreaders.inner_diameter for all", "give spreaders.wall instead")
+            if s.diameter is not None and self.spreaders.wall is not None and 2 * self.spreaders.wall >= s.diameter:
+                raise UserError(f"sockets[{k}].diameter", "two spreaders.wall are thicker than this pole",
+                                "a larger diameter or a thinner wall")
+            seen.add(s.index)
         return self

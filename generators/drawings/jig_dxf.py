@@ -10,10 +10,10 @@ from generators.units import MM_PER_IN, format_length
 
 
 def write_jig_drawing(ctx) -> None:
-    """jig.dxf when the design has an angle jig."""
-    jig = ctx.design.jig
-    if jig is not None:
-        write_jig_dxf(jig, ctx.folder / "jig.dxf", ctx.config.units)
+    """jig.dxf (and jig-<angle>deg.dxf) for each angle jig of the design."""
+    jigs = ctx.design.jigs or ((ctx.design.jig,) if ctx.design.jig is not None else ())
+    for jig in jigs:
+        write_jig_dxf(jig, ctx.folder / f"{jig.stem}.dxf", ctx.config.units)
 
 
 def write_jig_dxf(jig: JigPlan, path: Path, units: str) -> None:

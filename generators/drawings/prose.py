@@ -89,8 +89,10 @@ class SheetProse:
 
         if self.face.kind != "flat" or jig_reason(self.plan, self.cfg) is not None:
             return ""
+        falls = any(h.kind == "socket" and h.axis[2] > 1e-9 for h in self.plan.holes_on(self.face.id))
+        against = "top face against the fence (this socket falls outward)" if falls else "bottom face against the fence"
         return (" The angle jig of this build (jig.dxf, jig.step, jig.stl) is that wedge: the hub on the flat"
-                " opposite this one, bottom face against the fence.")
+                f" opposite this one, {against}.")
 
     def _notes(self, tilts: dict[str, Tilt]) -> list[str]:
         f, u = self.face, self.units

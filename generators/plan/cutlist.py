@@ -49,6 +49,7 @@ class CutLine:
     azimuth_deg: float
     elevation_deg: float
     cut_length_mm: float
+    end_radius_mm: float = 0.0  # horizontal radius of this pole's axis at its inner end
 
 
 @dataclass(frozen=True)
@@ -86,13 +87,22 @@ def tip_allowance_mm(cfg: Config) -> float:
 
 
 def end_radius_mm(stop_radius_mm: float, blind: bool, pole_diameter_mm: float, elevation_deg: float,
-                  count: int) -> tuple[float, bool]:
-    """Horizontal radius of the pole axis at its inner end; True if the poles meet first."""
+                  count: int, gap_deg: float | None = None, other_diameter_mm: float | None = None
+                  ) -> tuple[float, bool]:
+    """Horizontal radius of the pole axis at its inner end; True if the poles meet first.
+
+    ``gap_deg`` is the azimuth to the nearest neighbour (default 360 / count) and
+    ``other_diameter_mm`` that neighbour's pole (default the same pole): their sides
+    touch where ``2 rho sin(gap / 2) = r + r_other``. A falling pole (negative
+    elevation) touches the stop with its lower edge: the same ``r sin |e|``.
+    """
     r = pole_diameter_mm / 2
     if blind:
         return stop_radius_mm, False
-    rho = stop_radius_mm + r * math.sin(math.radians(elevation_deg))
-    meet = r / math.sin(math.pi / count)
+    rho = stop_radius_mm + r * math.sin(math.radians(abs(elevation_deg)))
+    half = math.radians(gap_deg) / 2 if gap_deg is not None else math.pi / count
+    r_other = r if other_diameter_mm is None else other_diameter_mm / 2
+    meet = (r + r_other) / 2 / math.sin(half)
     if meet > rho:
         return meet, True
     return rho, False
@@ -106,9 +116,9 @@ def cut_case(cfg: Config, plan: HubPlan, stop: str, stop_kind: str, stop_radius:
              sleeves: tuple[str, ...] = ()) -> CutCase:
     tip = tip_radius_mm(cfg)
     allowance = tip_allowance_mm(cfg)
-    sp = plan.spreaders[0]
-    rho, meet = end_radius_mm(stop_radius, stop_kind == "floor", sp.diameter_mm, sp.elevation_deg,
-                              len(plan.spreaders))
+    ends = [_pole_end(plan, s, stop_radius, stop_kind == "floor") for s in plan.spreaders]
+    rho = ends[0][0]
+    meet = any(m for _, m in ends)
     if meet:
         stop, stop_kind = f"neighbouring poles (before the {stop})", "poles"
     outer = plan.body.corner_radius_mm
@@ -117,10 +127,23 @@ def cut_case(cfg: Config, plan: HubPlan, stop: str, stop_kind: str, stop_radius:
         raise UserError(key, f"the tips ({format_length(tip, cfg.units, fractions=False)} from the mast"
                         " axis) are inside the hub", f"more than {format_length(outer, cfg.units, False)}")
     lines = tuple(CutLine(spreader=s.id, azimuth_deg=s.azimuth_deg % 360, elevation_deg=s.elevation_deg,
-                          cut_length_mm=cut_length_mm(tip, rho, s.elevation_deg, allowance))
-                  for s in plan.spreaders)
+                          cut_length_mm=cut_length_mm(tip, end[0], s.elevation_deg, allowance),
+                          end_radius_mm=end[0])
+                  for s, end in zip(plan.spreaders, ends))
     return CutCase(stop=stop, stop_kind=stop_kind, stop_radius_mm=stop_radius, end_radius_mm=rho,
                    tip_radius_mm=tip, tip_allowance_mm=allowance, lines=lines, sleeves=sleeves)
+
+
+def _pole_end(plan: HubPlan, s, stop_radius: float, blind: bool) -> tuple[float, bool]:
+    """One pole's inner end radius, against its nearest neighbour in azimuth. A blind
+    socket's floor is the pole's own (it moves in with the socket's elevation)."""
+    if blind:
+        stop_radius = s.stop_radius_mm
+    others = [o for o in plan.spreaders if o.id != s.id]
+    gap = lambda o: abs(((o.azimuth_deg - s.azimuth_deg + 180) % 360) - 180)  # noqa: E731
+    near = min(others, key=gap) if others else None
+    return end_radius_mm(stop_radius, blind, s.diameter_mm, s.elevation_deg, len(plan.spreaders),
+                         gap(near) if near else None, near.diameter_mm if near else None)
 
 
 def cut_list(cfg: Config, plan: HubPlan, sleeves=()) -> list[CutCase]:

@@ -1,8 +1,7 @@
 """Config → HubPlan: the body and every hole of the hub, and the refusals.
 
-Each socket axis lies in the vertical plane through the mast axis at its azimuth,
-rises outward at the elevation, and passes through mid-thickness halfway along its
-horizontal run, so a tilted socket stays centred in the body.
+The sockets (each with its own size and angles) are planned in plan/hub_sockets.py,
+set-screw and clamp holes in plan/hub_fasteners.py, extra holes in plan/hub_extras.py.
 """
 
 from __future__ import annotations
@@ -12,10 +11,11 @@ import math
 from generators.config.models import Config
 from generators.errors import UserError
 from generators.plan import limits as L
-from generators.plan.geometry import edge_distance, polar
+from generators.plan.geometry import edge_distance
 from generators.plan.hub_extras import ExtraHoles
 from generators.plan.hub_fasteners import FastenerHoles
-from generators.plan.model import Body, Face, Hole, HubPlan, Spreader
+from generators.plan.hub_sockets import SocketHoles
+from generators.plan.model import Body, Face, Hole, HubPlan
 from generators.plan.holes import drill_name_for, material_class
 from generators.units import format_length
 
@@ -27,7 +27,7 @@ def build_plan(cfg: Config) -> HubPlan:
     return _Planner(cfg).plan()
 
 
-class _Planner(FastenerHoles, ExtraHoles):
+class _Planner(SocketHoles, FastenerHoles, ExtraHoles):
     def __init__(self, cfg: Config):
         self.cfg = cfg
         self.units = cfg.units
@@ -172,87 +172,7 @@ class _Planner(FastenerHoles, ExtraHoles):
                     outline=((-width / 2, 0.0), (width / 2, 0.0), (width / 2, self.T), (-width / 2, self.T)),
                     azimuth_deg=az, label=f"{kind} face at {az % 360:.1f} deg, seen from outside, top edge up")
 
-    def _socket_face(self, az: float) -> Face:
-        if self.body.style == "puck":
-            return self.faces[2]
-        for f in self.faces:
-            if f.kind == "flat" and abs(((f.azimuth_deg - az + 180) % 360) - 180) < 1e-6:
-                return f
-        raise AssertionError("no flat faces the socket")
-
-    # ---- sockets ----------------------------------------------------------------------
-    def _sockets(self):
-        sp = self.cfg.spreaders
-        e = math.radians(sp.elevation)
-        r_s = (sp.diameter + sp.fit) / 2
-        r_o = self.body.outer_radius_mm
-        self.r_s = r_s
-        if sp.socket_depth == "to-bore":
-            r_i = self.Rb
-        else:
-            r_i = r_o - sp.socket_depth * math.cos(e)
-            if r_i < self.Rb + L.MIN_WEB_MM:
-                longest = (r_o - self.Rb - L.MIN_WEB_MM) / math.cos(e)
-                raise UserError("spreaders.socket_depth", f"{self.fmt(sp.socket_depth)} reaches the bore",
-                                f'"to-bore", or at most {self.fmt(max(longest, 0))} to leave a web')
-        # neighbouring sockets must not meet before they end (at the bore or their floor)
-        half = math.pi / self.N
-        web = 2 * r_i * math.sin(half) - 2 * r_s
-        if web < L.MIN_WEB_MM:
-            need = 2 * ((r_s + L.MIN_WEB_MM / 2) / math.sin(half))
-            what = "bore" if sp.socket_depth == "to-bore" else "socket floor circle"
-            raise UserError("spreaders.diameter", f"{self.N} sockets of {self.fmt(2 * r_s)} meet before the"
-                            f" {what} ({self.fmt(2 * r_i)} across): "
-                            + (f"web {self.fmt(web)}" if web >= 0 else f"they overlap by {self.fmt(-web)}"),
-                            f"a {what} of at least {self.fmt(need)} (hub.bore), fewer or thinner spreaders")
-        rho_mid = (r_o + r_i) / 2
-        z = lambda rho: self.T / 2 + (rho - rho_mid) * math.tan(e)  # noqa: E731
-        top, bottom = z(r_o) + r_s / math.cos(e), z(r_i) - r_s / math.cos(e)
-        if top > self.T - L.MIN_WEB_MM or bottom < L.MIN_WEB_MM:
-            side = "top" if top - self.T > -bottom else "bottom"
-            if sp.elevation == 0:
-                need = 2 * r_s + 2 * L.MIN_WEB_MM
-                raise UserError("hub.thickness", f"{self.fmt(self.T)} leaves under {self.fmt(L.MIN_WEB_MM)}"
-                                f" of wall above and below the {self.fmt(2 * r_s)} sockets",
-                                f"at least {self.fmt(need)}, or thinner spreaders")
-            raise UserError("spreaders.elevation", f"sockets tilted {sp.elevation:g} deg break out of"
-                            f" (or come within {self.fmt(L.MIN_WEB_MM)} of) the {side} face",
-                            "less elevation, a thicker hub (hub.thickness) or a shorter socket_depth")
-        if self.body.style == "block":
-            flat = self._socket_face(sp.first_azimuth)
-            half_w = flat.outline[1][0]
-            if r_s > half_w - L.MIN_EDGE_MM:
-                raise UserError("spreaders.diameter", f"the socket ({self.fmt(2 * r_s)}) is wider than its"
-                                f" flat ({self.fmt(2 * half_w)}) allows",
-                                "a larger hub.across_flats or fewer hub.sides")
-        depth = (r_o - r_i) / math.cos(e)
-        lead = L.CUT_OVERRUN_MM + r_s * math.tan(e)
-        if self.body.style == "puck":
-            lead += r_o - math.sqrt(max(r_o ** 2 - r_s ** 2, 0.0))
-        if sp.socket_depth == "to-bore":
-            rho_end = math.sqrt(self.Rb ** 2 - r_s ** 2) - r_s * math.sin(e) - 0.2
-            extend = (r_i - max(rho_end, 0.0)) / math.cos(e)
-            stop_r, stop = self._stop()
-        else:
-            extend, stop_r, stop = 0.0, r_i, "socket floor"
-        holes, spreaders = [], []
-        for i in range(self.N):
-            az = sp.first_azimuth + i * 360 / self.N
-            t = math.radians(az)
-            axis = (-math.cos(e) * math.cos(t), -math.cos(e) * math.sin(t), -math.sin(e))
-            entry = polar(r_o, az, z(r_o))
-            face = self._socket_face(az)
-            hole = Hole(id=f"S{i + 1}", kind="socket", face=face.id, entry_mm=entry, axis=axis,
-                        diameter_mm=2 * r_s, depth_mm=depth, extend_mm=extend, lead_mm=lead,
-                        drill=drill_name_for(2 * r_s, self._series_for(None)), spreader=i + 1,
-                        note=f"spreader {i + 1}")
-            holes.append(hole)
-            spreaders.append(Spreader(id=i + 1, azimuth_deg=az, elevation_deg=sp.elevation,
-                                      socket_hole=hole.id, diameter_mm=sp.diameter,
-                                      outward=(-axis[0], -axis[1], -axis[2]), mouth_mm=entry,
-                                      bottom_mm=hole.bottom_mm, stop_radius_mm=stop_r, stop=stop))
-        return holes, spreaders
-
+    # ---- sockets (generators/plan/hub_sockets.py) -------------------------------------
     def _stop(self) -> tuple[float, str]:
         """What a pole in a to-bore socket butts against, as a horizontal radius."""
         fitted = self.mast_od + self.cfg.mast.clearance

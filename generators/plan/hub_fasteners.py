@@ -26,8 +26,9 @@ class FastenerHoles:
         face = self.faces[0] if ss.face == "top" else self.faces[1]
         holes = []
         for sock in sockets:
+            # along this socket's own axis (its elevation is in the axis: sin e = -axis z)
             depth = sock.depth_mm if self.cfg.spreaders.socket_depth != "to-bore" else \
-                (self.body.outer_radius_mm - self.Rb) / math.cos(math.radians(self.cfg.spreaders.elevation))
+                (self.body.outer_radius_mm - self.Rb) / math.sqrt(1.0 - sock.axis[2] ** 2)
             if ss.per_spreader == 1:
                 positions = [ss.position if ss.position is not None else depth / 2]
             else:

@@ -151,13 +151,15 @@ def tube_second_moment(od_mm: float, id_mm: float) -> float:
     return math.pi * (od_mm ** 4 - id_mm ** 4) / 64.0
 
 
-def pole_bore_mm(cfg: Config) -> float | None:
-    """The spreader tube's inside diameter at the hub; None when the config gives neither."""
+def pole_bore_mm(cfg: Config, od_mm: float | None = None) -> float | None:
+    """The spreader tube's inside diameter at the hub (of a pole ``od_mm`` across, by
+    default spreaders.diameter); None when the config gives neither."""
     sp = cfg.spreaders
+    od = sp.diameter if od_mm is None else od_mm
     if sp.inner_diameter is not None:
         return sp.inner_diameter
     if sp.wall is not None:
-        return max(sp.diameter - 2.0 * sp.wall, 0.0)
+        return max(od - 2.0 * sp.wall, 0.0)
     return None
 
 
@@ -192,7 +194,6 @@ def spreader_loads(cfg: Config, plan: HubPlan, q: float, wind_az: float, L_m: li
     from generators.plan.ice import iced_diameter_mm
 
     ld = cfg.loads
-    d_m = iced_diameter_mm(cfg.spreaders.diameter, ld.ice_thickness) / 1000.0
     wire_d = iced_diameter_mm(ld.wire_diameter, ld.ice_thickness) if ld.wire_diameter > 0 else 0.0
     wire_f = q * ld.drag_coefficient * (wire_d / 1000.0) * (ld.wire_length_per_spreader / 1000.0)
     out = []
@@ -200,6 +201,7 @@ def spreader_loads(cfg: Config, plan: HubPlan, q: float, wind_az: float, L_m: li
     for s, L in zip(plan.spreaders, L_m):
         cos_psi = sum(a * b for a, b in zip(s.outward, w_dir))
         sin2 = max(0.0, 1.0 - cos_psi * cos_psi)
+        d_m = iced_diameter_mm(s.diameter_mm, ld.ice_thickness) / 1000.0  # this spreader's own pole, iced
         w = q * ld.drag_coefficient * d_m * sin2
         pole = w * L
         moment = w * L * L / 2.0 + wire_f * L
@@ -272,11 +274,11 @@ def wind_estimate(cfg: Config, plan: HubPlan, engaged_mm: float | None = None,
     # the largest moment; among equal ones (a symmetric hub) the lowest spreader id
     worst = max(loads, key=lambda x: (round(x.moment_nm, 6), -x.spreader, -x.wind_azimuth_deg))
     # axial pull: wind along the spreader (sin^2 = 0): the wire share plus skin friction
-    d_m = cfg.spreaders.diameter / 1000.0
+    D = next(s.diameter_mm for s in plan.spreaders if s.id == worst.spreader)
+    d_m = D / 1000.0
     L = worst.exposed_length_m
     pull = worst.wire_force_n + q * CF_AXIAL * math.pi * d_m * L
-    D = cfg.spreaders.diameter
-    d_in = pole_bore_mm(cfg)
+    d_in = pole_bore_mm(cfg, D)
     solid = d_in is None
     pole_mat = get_material(ld.spreader_material, key="loads.spreader_material")
     hub_mat = get_material(cfg.hub.material)

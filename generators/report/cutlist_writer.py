@@ -20,6 +20,11 @@ def _in_units(mm: float, units: str) -> float:
     return round(mm / MM_PER_IN, 4) if units == "in" else round(mm, 2)
 
 
+def _stop_radius(case: CutCase, line) -> float:
+    """The stop's radius for this pole: a blind socket's floor is its own (its elevation)."""
+    return line.end_radius_mm if case.stop_kind == "floor" and line.end_radius_mm else case.stop_radius_mm
+
+
 def cutlist_csv(cases: list[CutCase], units: str) -> str:
     buf = io.StringIO()
     w = csv.writer(buf, lineterminator="\n")
@@ -29,7 +34,7 @@ def cutlist_csv(cases: list[CutCase], units: str) -> str:
         stop = case.stop + (f" (sleeves {' '.join(case.sleeves)})" if case.sleeves else "")
         for line in case.lines:
             w.writerow([line.spreader, f"{line.azimuth_deg:g}", f"{line.elevation_deg:g}", stop,
-                        f"{2 * case.stop_radius_mm:.3f}", f"{_in_units(line.cut_length_mm, units)}",
+                        f"{2 * _stop_radius(case, line):.3f}", f"{_in_units(line.cut_length_mm, units)}",
                         units, f"{line.cut_length_mm:.2f}"])
     return buf.getvalue()
 
@@ -67,9 +72,15 @@ def write_cutlist(ctx) -> None:
                    "cut_length_mm": round(c.cut_length_mm, 3)} for c in cases],
     }
     n = len(primary.lines)
-    ctx.summary.append(f"  cut    {n} spreaders x {format_both(primary.cut_length_mm, units)} from the"
-                       f" {primary.stop} to the tip, {format_both(primary.tip_allowance_mm, units)}"
-                       f" allowance included -> {CUTLIST}")
+    distinct = sorted({round(ln.cut_length_mm, 1) for ln in primary.lines})
+    if len(distinct) > 1:  # per-socket sizes or angles: the lengths differ
+        ctx.summary.append("  cut    " + ", ".join(f"S{ln.spreader} {format_both(ln.cut_length_mm, units)}"
+                                                   for ln in primary.lines)
+                           + f" from the {primary.stop} to the tip -> {CUTLIST}")
+    else:
+        ctx.summary.append(f"  cut    {n} spreaders x {format_both(primary.cut_length_mm, units)} from the"
+                           f" {primary.stop} to the tip, {format_both(primary.tip_allowance_mm, units)}"
+                           f" allowance included -> {CUTLIST}")
     for c in cases[1:]:
         ctx.summary.append(f"         on the {c.stop}: {format_both(c.cut_length_mm, units)};"
                            f" {_difference(c.cut_length_mm, primary.cut_length_mm, units, 'the cut for the ' + primary.stop)}")

@@ -55,6 +55,26 @@ class _Md:
         self.add("")
 
 
+def frame_section(md: _Md, manifest: dict) -> None:
+    """The whole frame: frame.png and assembly.step, each tip's point and height."""
+    frame, assembly = manifest.get("frame"), manifest.get("assembly")
+    if not frame and not assembly:
+        return
+    md.add("## The frame", "")
+    files = [f"`{x['file']}`" for x in (frame, assembly) if x]
+    md.add("The hub with a mast stub, each spreader from its stop to its cut end and the wires between"
+           f" the tips: {' and '.join(files)}.", "")
+    if frame:
+        md.add(f"![the frame, top and side view]({frame['file']})", "")
+        rows = [[f"S{t['spreader']}", md.both(t["tip_mm"][0]), md.both(t["tip_mm"][1]), md.both(t["height_mm"]),
+                 md.both(t["cut_length_mm"])] for t in frame["tips"]]
+        md.table(["tip", "x", "y", "height above the bottom face", "cut length"], rows)
+        for w in frame.get("wires") or []:
+            md.add(f"- wire S{w['from']} to S{w['to']}: {md.both(w['length_mm'])} tip to tip (straight)")
+        if frame.get("wires"):
+            md.add("")
+
+
 def schedule_sections(d) -> list[tuple[int, str, list]]:
     """(stage, face id, operations) in working order: every face's marking and bore first,
     then the sockets, then the holes that break into them; step numbers as on the templates."""
@@ -127,13 +147,19 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
         ["mast", f"{plan.mast_designation}, OD {md.both(plan.mast_od_mm)}"],
         ["hub", f"{body.style}, {size}, {md.both(body.thickness_mm)} thick, {mat.name} ({plan.process})"],
         plate_md.mast_row(d, md),
-        ["spreaders", f"{sp.count} x {md.both(sp.diameter)} poles at {sp.elevation:g} deg elevation,"
+        ["spreaders", f"{sp.count} x {md.both(sp.diameter)} poles at {sp.elevation:g} deg elevation"
+                      + (f" ({len(cfg.sockets)} set apart in [[sockets]], below)," if cfg.sockets else ",")
+                      +
                       f" first at {sp.first_azimuth:g} deg azimuth"],
     ]
     if sockets:
         stop = plan.spreaders[0].stop
         rows.append(["sockets", f"{len(sockets)} x {md.both(sockets[0].diameter_mm)},"
                                 f" {md.L(sockets[0].depth_mm)} deep; the pole stops at the {stop}"])
+        for o in cfg.sockets:  # [[sockets]] overrides: each such socket as planned
+            s, h = plan.spreaders[o.index - 1], plan.hole(f"S{o.index}")
+            rows.append([f"socket {h.id}", f"{md.both(h.diameter_mm)} for a {md.L(s.diameter_mm)} pole,"
+                                           f" azimuth {s.azimuth_deg % 360:g} deg, elevation {s.elevation_deg:g} deg"])
     files = sorted((manifest.get("files") or {}).keys())
     if files:
         rows.append(["files", ", ".join(files) + ", manifest.json"])
@@ -188,9 +214,9 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     md.add("## Spreader cut list", "")
     spreaders = manifest.get("spreaders") or []
     if cut and any("cut_length_mm" in s for s in spreaders):
-        rows = [[str(s["id"]), f"{s['azimuth_deg']:g} deg", md.both(s["cut_length_mm"]), s.get("cut_stop", s.get("stop", ""))]
-                for s in spreaders]
-        md.table(["spreader", "azimuth", "cut length", "measured from"], rows)
+        rows = [[str(s["id"]), f"{s['azimuth_deg']:g} deg", f"{s['elevation_deg']:g} deg",
+                 md.both(s["cut_length_mm"]), s.get("cut_stop", s.get("stop", ""))] for s in spreaders]
+        md.table(["spreader", "azimuth", "elevation", "cut length", "measured from"], rows)
         if cut.get("tip_allowance_mm") is not None:
             md.add(f"Lengths include {md.L(cut['tip_allowance_mm'])} tip allowance; tips at"
                    f" {md.both(cut['tip_radius_mm'])} from the mast axis. File: `{cut.get('file', '')}`.", "")
@@ -200,6 +226,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
             md.add("")
     else:
         md.add("No cut list in this build (it needs spreaders.tip_radius or spreaders.tip_spacing).", "")
+    frame_section(md, manifest)
 
     md.add("## Reducer sleeves", "")
     reducers = manifest.get("reducers") or []
@@ -285,8 +312,11 @@ def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
         extras.setdefault(key, []).append(h.id)
     for (item, size, note), ids in extras.items():
         rows.append([str(len(ids)), item, size, f"{note} ({', '.join(ids)})"])
-    rows.append([str(cfg.spreaders.count), "spreader pole", f"{md.L(cfg.spreaders.diameter)} OD at the hub",
-                 "see the cut list"])
+    by_od: dict[float, int] = {}
+    for s in plan.spreaders:
+        by_od[s.diameter_mm] = by_od.get(s.diameter_mm, 0) + 1
+    for od, n in by_od.items():
+        rows.append([str(n), "spreader pole", f"{md.L(od)} OD at the hub", "see the cut list"])
     return rows
 
 

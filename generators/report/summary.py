@@ -25,8 +25,7 @@ def summary_lines(result) -> list[str]:
         f"built {m['name']}: {hub['style']} hub, {size}, {format_both(hub['thickness_mm'], units)} thick",
         f"  mast   {m['mast']['designation']} -> OD {format_both(m['mast']['od_mm'], units)};"
         f" {held}",
-        f"  sockets {len(sockets)} x {format_both(sockets[0]['diameter_mm'], units)}"
-        f" at {m['spreaders'][0]['elevation_deg']:g} deg elevation" if sockets else
+        _sockets_line(sockets, m["spreaders"], units) if sockets else
         f"  poles  {len(m['spreaders'])} x {format_both(m['spreaders'][0]['diameter_mm'], units)} flat on the plate,"
         " two U-bolts each" if plate else "  no sockets",
         "  holes  " + ", ".join(f"{n} {k}" for k, n in counts.items()),
@@ -51,3 +50,13 @@ def _file_list(files) -> list[str]:
         else:
             top.append(name)
     return top + [f"{d}/ ({n} files)" for d, n in sorted(folders.items())]
+
+
+def _sockets_line(sockets: list[dict], spreaders: list[dict], units: str) -> str:
+    """One line for the sockets; each named when [[sockets]] makes them differ."""
+    kinds = {(round(h["diameter_mm"], 3), round(s["elevation_deg"], 3)) for h, s in zip(sockets, spreaders)}
+    if len(kinds) == 1:
+        return (f"  sockets {len(sockets)} x {format_both(sockets[0]['diameter_mm'], units)}"
+                f" at {spreaders[0]['elevation_deg']:g} deg elevation")
+    return "  sockets " + ", ".join(f"{h['id']} {format_both(h['diameter_mm'], units)} at {s['elevation_deg']:g} deg"
+                                     for h, s in zip(sockets, spreaders))

@@ -73,25 +73,29 @@ def test_holes_follow_the_frame_and_rules_of_item_3(build_case, name):
     cfg, m = b.config, b.manifest
     holes = {h["id"]: h for h in m["holes"]}
     T, N, sp = cfg.hub.thickness, cfg.spreaders.count, cfg.spreaders
-    e = math.radians(sp.elevation)
     kinds = [h["kind"] for h in m["holes"]]
     assert kinds.count("bore") == 1 and kinds.count("socket") == N
     # bore: on the mast axis, through the full thickness
     bore = holes["bore"]
     assert bore["entry_mm"][:2] == pytest.approx([0, 0], abs=1e-9) and bore["depth_mm"] == pytest.approx(T)
-    # spreader 1 at first_azimuth, the rest evenly spaced counter-clockwise
+    # spreader 1 at first_azimuth, the rest evenly spaced counter-clockwise, except where a
+    # [[sockets]] table of the config gives a socket its own azimuth, elevation, pole or fit
+    over = {o.index: o for o in cfg.sockets}
     for i, s in enumerate(m["spreaders"]):
         assert s["id"] == i + 1 and s["socket_hole"] == f"S{i + 1}"
-        want = (sp.first_azimuth + i * 360 / N) % 360
+        o = over.get(i + 1)
+        own = (lambda f, default: default if o is None or getattr(o, f) is None else getattr(o, f))  # noqa: E731
+        want = own("azimuth", (sp.first_azimuth + i * 360 / N) % 360)
+        e = math.radians(own("elevation", sp.elevation))
         assert (s["azimuth_deg"] - want + 180) % 360 - 180 == pytest.approx(0, abs=1e-6)
-        assert s["elevation_deg"] == pytest.approx(sp.elevation)
+        assert s["elevation_deg"] == pytest.approx(math.degrees(e))
         h = holes[s["socket_hole"]]
         az = math.radians(want)
         # axis in the vertical plane through the mast axis at the azimuth, pointing in and
         # down (the pole rises outward at the elevation)
         assert h["axis"] == pytest.approx([-math.cos(e) * math.cos(az), -math.cos(e) * math.sin(az),
                                            -math.sin(e)], abs=1e-6)
-        assert h["diameter_mm"] == pytest.approx(sp.diameter + sp.fit)
+        assert h["diameter_mm"] == pytest.approx(own("diameter", sp.diameter) + own("fit", sp.fit))
         entry, bottom = np.array(h["entry_mm"]), np.array(h["entry_mm"]) + np.array(h["axis"]) * h["depth_mm"]
         # halfway along the horizontal run the axis is at mid-thickness
         assert (entry[2] + bottom[2]) / 2 == pytest.approx(T / 2, abs=1e-4)

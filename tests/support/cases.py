@@ -78,7 +78,21 @@ QUAD_PUCK_10_INCH = {
     "holes": [{"id": "P1", "face": "top", "at": [0.0, 1.7], "diameter": 0.25, "depth": 0.5}],
 }
 
+# 4 spreaders on a puck with [[sockets]] overrides: S2 and S4 fall 12 deg while S1 and S3
+# rise 12 deg, S4 takes a thicker pole with its own fit, S3 is turned to 190 deg azimuth.
+SPIDER_PUCK_MIXED = {
+    "name": "spider-puck-mixed", "units": "mm",
+    "mast": {"size": "38 mm", "clearance": 1.0},
+    "hub": {"style": "puck", "diameter": 150, "thickness": 62, "material": "nylon"},
+    "spreaders": {"count": 4, "diameter": 20, "elevation": 12, "first_azimuth": 0,
+                  "socket_depth": 40, "tip_radius": "2 m"},
+    "sockets": [{"index": 2, "elevation": -12}, {"index": 4, "elevation": "-12 deg", "diameter": 25, "fit": 0.6},
+                {"index": 3, "azimuth": 190}],
+    "set_screws": {"thread": "M5", "per_spreader": 1, "face": "top"},
+}
+
 VARIED = {
+    "spider-puck-mixed": SPIDER_PUCK_MIXED,
     "tri-puck-30": TRI_PUCK_30,
     "oct-block-inch": OCT_BLOCK_INCH,
     "hex-dodeca-30": HEX_DODECA_30,

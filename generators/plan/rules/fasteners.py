@@ -48,7 +48,8 @@ class FastenerRules(RulesBase):
             sock = next(s for s in self.sockets if s.spreader == h.spreader)
             e = self._elev(sock)
             # the pole pushed onto the far side of its socket by the screw
-            gap_to_pole = h.depth_mm - (self.cfg.spreaders.diameter - sock.radius_mm) / math.cos(e)
+            pole = next(p.diameter_mm for p in self.plan.spreaders if p.id == h.spreader)
+            gap_to_pole = h.depth_mm - (pole - sock.radius_mm) / math.cos(e)
             pocket = None if h.thread else self._pocket(h)
             if h.tapped is not None:
                 start, end = h.tapped.start_mm, h.tapped.end_mm

@@ -51,8 +51,9 @@ class PlacementRules(RulesBase):
     def rule_socket_depth(self) -> RuleResult:
         if not self.sockets:
             return self._na("socket-depth", "x D", "no sockets")
-        D = self.cfg.spreaders.diameter
-        h = min(self.sockets, key=lambda s: s.depth_mm)
+        pole = {p.socket_hole: p.diameter_mm for p in self.plan.spreaders}
+        h = min(self.sockets, key=lambda s: s.depth_mm / pole.get(s.id, self.cfg.spreaders.diameter))
+        D = pole.get(h.id, self.cfg.spreaders.diameter)
         ratio = h.depth_mm / D
         status, limit = _grade(ratio, DEPTH_MIN_D, DEPTH_RECOMMENDED_D)
         msg = f"{h.id}: {self.fmt(h.depth_mm)} deep for a {self.fmt(D)} pole = {ratio:.2f} x D"
@@ -67,8 +68,9 @@ class PlacementRules(RulesBase):
         and before its wall drops under the minimum."""
         if not self.sockets:
             return self._na("socket-tilt", "deg", "no sockets")
-        h = self.sockets[0]
-        e_now = math.degrees(self._elev(h))
+        # the socket nearest breaking out: the most tilt for its size
+        h = max(self.sockets, key=lambda s: (round(abs(self._elev(s)), 9), s.diameter_mm))
+        e_now = abs(math.degrees(self._elev(h)))
         rho0 = math.hypot(h.entry_mm[0], h.entry_mm[1])
         rho1 = math.hypot(h.bottom_mm[0], h.bottom_mm[1])
         half_run = abs(rho0 - rho1) / 2
