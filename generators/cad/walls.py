@@ -14,7 +14,7 @@ import numpy as np
 
 from generators.cad.export import tessellate_mm
 from generators.plan.cutters import Cutter
-from generators.plan.measured_walls import REFINE_BELOW_MM, faces_entered, meets_by_design
+from generators.plan.measured_walls import faces_entered, meets_by_design
 from generators.plan.model import HubPlan
 
 # A face lies on a cut when the centres of its mesh triangles (meshed to TESSELLATE_MM) are
@@ -55,7 +55,7 @@ def measure_solid_wall(solid: cq.Shape, plan: HubPlan) -> dict:
         for b in refs[i + 1:]:
             if not _walled(a, b, holes, plan):
                 continue
-            if _box_gap(boxes[a], boxes[b]) >= min(best[0], REFINE_BELOW_MM):
+            if _box_gap(boxes[a], boxes[b]) >= best[0]:
                 continue
             d = comp[a].distance(comp[b])
             if d < best[0]:

@@ -53,6 +53,7 @@ class _Planner(SocketHoles, FastenerHoles, ExtraHoles):
                       drill=drill_name_for(self.bore, self._series_for(None)),
                       extend_mm=L.CUT_OVERRUN_MM)]
         sockets, spreaders = self._sockets()
+        self.spreader_of = {sp.id: sp for sp in spreaders}
         holes += sockets
         holes += self._set_screws(sockets)
         holes += self._clamps(sockets)

@@ -84,7 +84,10 @@ class ExtraHoles:
             if thread is not None:
                 from generators.standards.engagement import tap_depth_mm
 
-                run = ThreadRun(0.0, depth if through else min(depth, tap_depth_mm(thread, self._mat_class())))
+                # blind: a bottoming tap still leaves about two pitches short of the drilled
+                # depth (common practice), so the thread never runs to the bottom
+                blind_max = depth - 2 * spec.thread.pitch_mm
+                run = ThreadRun(0.0, depth if through else max(min(blind_max, tap_depth_mm(thread, self._mat_class())), 0.0))
                 engaged = run.length_mm if through else max(run.length_mm - 2 * spec.thread.pitch_mm, 0.0)
                 screw = tapped_extra_screw(thread, engaged, self.fmt)
             out.append(Hole(id=spec.id, kind="extra", face=spec.face, entry_mm=entry, axis=axis,

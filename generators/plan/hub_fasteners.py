@@ -56,12 +56,14 @@ class FastenerHoles:
                                     "a position nearer the outer face")
                 self._clear_of_sockets("set_screws.thread", entry, axis, d, r_d, sockets, skip=sock.id,
                                        what=f"set screw {hid}")
-                cos_e = math.cos(math.radians(self.cfg.spreaders.elevation))
-                wall = d - self.r_s / cos_e  # face to the socket wall, along the screw
-                gap = d - (self.cfg.spreaders.diameter - self.r_s) / cos_e  # to the pole, pushed over
+                cos_e = math.sqrt(max(1.0 - sock.axis[2] ** 2, 1e-12))  # this socket's own tilt
+                r_s = sock.radius_mm
+                pole = self.spreader_of[sock.spreader].diameter_mm
+                wall = d - r_s / cos_e  # face to the socket wall, along the screw
+                gap = d - (pole - r_s) / cos_e  # to the pole, pushed over
                 run = thread_run(wall, ss.thread, self._mat_class(), self._series_for(ss.thread))
                 screw = set_screw(ss.thread.designation, gap, run.start_mm, run.end_mm, ss.length,
-                                  self.units, self.fmt)
+                                  self.units, self.fmt, point=ss.point)
                 holes.append(Hole(id=hid, kind="set_screw", face=ss.face, entry_mm=entry, axis=axis,
                                   diameter_mm=tap.drill.diameter_mm, depth_mm=d, drill=tap.drill.name,
                                   thread=ss.thread.designation, thread_percent=tap.thread_percent,

@@ -34,7 +34,8 @@ def printed_screws(machined: HubPlan, cfg, holes: list[Hole], pockets: list[Hole
             sock = next(s for s in machined.holes if s.kind == HoleKind.SOCKET and s.spreader == h.spreader)
             cos_e = math.cos(math.radians(cfg.spreaders.elevation))
             gap = orig.depth_mm - (cfg.spreaders.diameter - sock.radius_mm) / cos_e
-            screw = set_screw(orig.thread, gap, start, end, cfg.set_screws.length, cfg.units, fmt, nut=nut)
+            screw = set_screw(orig.thread, gap, start, end, cfg.set_screws.length, cfg.units, fmt, nut=nut,
+                               point=cfg.set_screws.point)
         elif h.kind == HoleKind.CLAMP:
             screw, _ = clamp_screw(orig.thread, orig.depth_mm, machined.bore_mm - machined.mast_od_mm,
                                    start, end, cfg.units, fmt)

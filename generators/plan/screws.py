@@ -25,6 +25,13 @@ from generators.plan.model import Screw, ThreadRun
 CLAMP_PASS_MM = 1.0
 
 SET_SCREW_STD = "socket set screw, cup point (ISO 4029 / ASME B18.3)"
+# the set screw to buy for each [set_screws] point
+SET_SCREW_BY_POINT = {
+    "cup": SET_SCREW_STD,
+    "flat": "socket set screw, flat point (ISO 4026 / ASME B18.3)",
+    "dog": "socket set screw, dog point (ISO 4028 / ASME B18.3)",
+    "soft": "socket set screw with a nylon (soft) tip (common practice; body as ISO 4026 / ASME B18.3)",
+}
 CAP_SCREW_STD = "socket head cap screw (ISO 4762 / ASME B18.3)"
 
 
@@ -48,7 +55,7 @@ def _designation(thread: str, length_mm: float, units: str) -> str:
 
 
 def set_screw(thread: str, gap_mm: float, start_mm: float, end_mm: float, length_mm: float | None,
-              units: str, fmt, nut: bool = False) -> Screw:
+              units: str, fmt, nut: bool = False, point: str = "cup") -> Screw:
     """A set screw whose point sits ``gap_mm`` from the face on the pole, threaded in
     [start_mm, end_mm] (a tapped run, a captive nut or an insert)."""
     from generators.standards.fasteners import set_screw_lengths
@@ -66,7 +73,7 @@ def set_screw(thread: str, gap_mm: float, start_mm: float, end_mm: float, length
     note = (f"tight on the pole it sits {sits}, {fmt(max(in_thread, 0.0))} of it {where};"
             f" tighten with a hex key{through} until it bites, then snug")
     return Screw(designation=_designation(thread, length_mm, units), kind="set screw", thread=thread,
-                 length_mm=length_mm, standard=SET_SCREW_STD, note=note)
+                 length_mm=length_mm, standard=SET_SCREW_BY_POINT.get(point, SET_SCREW_STD), note=note)
 
 
 def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end_mm: float,
@@ -94,7 +101,7 @@ def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end
     designation = _designation(thread, length, units) + (" fully threaded" if full else "")
     head = (f"the head stands {fmt(length - wall_mm - gap_mm)} to {fmt(length - wall_mm)} proud of the face"
             if cbore == 0 else "the head goes down the counterbore")
-    note = (f"its point passes the bore wall by {fmt(reach - wall_mm)} with the head down, so it bites"
+    note = (f"its point passes the bore wall by {fmt(length + cbore - wall_mm)} with the head down, so it bites"
             f" the mast first; {head}; thread {fmt(start_mm)} to {fmt(end_mm)} from the face;"
             " tighten with the hex key until it bites, then a quarter turn (common practice)")
     return Screw(designation=designation, kind="cap screw", thread=thread, length_mm=length,

@@ -20,7 +20,7 @@ from tests.support.cases import all_cases, demo
 BIG_BLOCK_INCH = {
     "name": "big-block-inch", "units": "in",
     "mast": {"size": "2 in"},
-    "hub": {"style": "block", "across_flats": 11, "thickness": 2, "corner_chamfer": 1, "material": "hdpe"},
+    "hub": {"style": "block", "across_flats": 11, "thickness": 2, "corner_chamfer": 1.5, "material": "hdpe"},
     "spreaders": {"count": 4, "diameter": 1.25, "first_azimuth": 0, "socket_depth": 3},
     "set_screws": {"thread": "5/16-18", "per_spreader": 2, "point": "soft"},
     "mast_clamp": {"thread": "3/8-16", "count": 2},

@@ -88,7 +88,7 @@ SPIDER_PUCK_MIXED = {
                   "socket_depth": 40, "tip_radius": "2 m"},
     "sockets": [{"index": 2, "elevation": -12}, {"index": 4, "elevation": "-12 deg", "diameter": 25, "fit": 0.6},
                 {"index": 3, "azimuth": 190}],
-    "set_screws": {"thread": "M5", "per_spreader": 1, "face": "top"},
+    "set_screws": {"thread": "M5", "per_spreader": 1, "face": "top", "point": "soft", "torque": 0.8},
 }
 
 VARIED = {
