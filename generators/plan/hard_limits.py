@@ -72,8 +72,14 @@ def _edges(cfg: Config, plan: HubPlan, fmt) -> None:
 def _key(cfg: Config, plan: HubPlan, a, b, b_ref: str) -> str:
     hole = a if b is None or _ORDER.index(_kind(a)) <= _ORDER.index(_kind(b)) else b
     kind = _kind(hole)
+    if hole.kind == "u_bolt":
+        if b is None:
+            return "plate.edge_margin"
+        return "plate.mast_u_bolt_spacing" if hole.spreader is None else "plate.u_bolt_spacing"
     if kind == "extra":
-        i = next(k for k, spec in enumerate(cfg.holes) if spec.id == hole.id)
+        i = next((k for k, spec in enumerate(cfg.holes) if spec.id == hole.id), None)
+        if i is None:
+            return "hub"
         floor = b is None and b_ref[5:] in ("top", "bottom") and b_ref[5:] != hole.face and not hole.through
         return f"holes[{i}].depth" if floor else f"holes[{i}].at"
     if kind == "set_screw":

@@ -217,7 +217,9 @@ class _PlatePlanner:
                    ("mast_clamp", cfg.mast_clamp is not None, "the mast U-bolts clamp the mast",
                     "leave [mast_clamp] out"),
                    ("holes", bool(cfg.holes), "extra holes are not placed on a plate yet", "leave [[holes]] out"),
-                   ("reducers", bool(cfg.reducers), "a plate has no bore for a sleeve", "leave [[reducers]] out"))
+                   ("reducers", bool(cfg.reducers), "a plate has no bore for a sleeve", "leave [[reducers]] out"),
+                   ("sockets", bool(cfg.sockets), "a plate's poles lie in U-bolts, not sockets: per-socket"
+                    " sizes and angles are not planned on a plate yet", "leave [[sockets]] out"))
         for key, bad, problem, accepted in refused:
             if bad:
                 raise UserError(key, problem, accepted)
