@@ -85,8 +85,9 @@ def _kind(key: str) -> str:
     field = None
     for i, part in enumerate(parts):
         if model is None or part not in model.model_fields:
-            choices = list(model.model_fields) if model is not None else []
-            hint = did_you_mean(part, choices) if model is not None else ""
+            prefix = ".".join(parts[:i] + [""])
+            choices = [prefix + c for c in model.model_fields] if model is not None else []
+            hint = did_you_mean(prefix + part, choices) if model is not None else ""
             raise UserError("--vary", f"{key!r} is not a config key" + (f"; {hint}" if hint else ""), ACCEPTED)
         field = model.model_fields[part]
         model = _owner(field.annotation) if i < len(parts) - 1 else None
