@@ -72,7 +72,8 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
     lines += [f"  {d.key} = {_fmt(v, d.kind, units)}" for d, v in zip(dims, best.values)]
     sf = "-" if best.lowest_sf is None else f"{best.lowest_sf:.2f}"
     warns = [r["id"] for r in best.design.checks_json["rules"] if r["status"] == "warn"]
-    lines += [f"  material {best.material}, about {best.mass_g:.0f} g (the config: {orig_mass:.0f} g),"
+    was = "refused" if orig_mass is None else f"{orig_mass:.0f} g"
+    lines += [f"  material {best.material}, about {best.mass_g:.0f} g (the config: {was}),"
               f" lowest safety factor {sf}", f"  wrote {target}"]
     if warns:
         lines.append(f"  warns: {', '.join(warns)} (below the recommended figure; --strict sizes to it)")
@@ -122,6 +123,17 @@ def _unmet(result, cfg) -> dict:
                              "failed": list(a.failed), "refusal": a.refusal}}
 
 
+def _mass_of(cfg) -> float | None:
+    """The config's own estimated mass, or None when ``design()`` refuses it."""
+    from generators.design import design
+    from generators.errors import UserError
+
+    try:
+        return design(cfg).checks.mass_estimate_g
+    except UserError:
+        return None
+
+
 def _get(cfg, key: str):
     for part in key.split("."):
         cfg = getattr(cfg, part)
@@ -162,8 +174,7 @@ def run(args: argparse.Namespace) -> int:
     if start.mass_g is not None and on_grid and start.material == cfg.hub.material:
         orig_mass = start.mass_g
     else:
-        from generators.design import design
-        orig_mass = design(cfg).checks.mass_estimate_g
+        orig_mass = _mass_of(cfg)
     if args.json:
         rec = records[0]
         out = {"file": str(target), "objective": result.objective, "material": best.material,

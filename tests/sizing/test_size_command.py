@@ -98,3 +98,33 @@ def test_several_materials(tmp_path):
     assert data["material"] in ("pom", "hdpe")
     assert {c["material"] for c in data["candidates"]} <= {"pom", "hdpe"}
     assert run(["size", str(tmp_path / "six-spreader-portable.toml"), "--materials", "unobtainium"])[0] == 2
+
+
+def test_failing_start_is_grown(tmp_path):
+    """A hub too thin for its set screws (check fails or refuses) is grown, then sized."""
+    text = HEX.read_text(encoding="utf-8").replace("thickness = 46", "thickness = 20")
+    cfg = tmp_path / "thin.toml"
+    cfg.write_text(text, encoding="utf-8")
+    assert run(["check", str(cfg)])[0] != 0
+    code, data = size_json(cfg)
+    assert code == 0
+    assert data["design"]["hub.thickness"] > 20
+    assert run(["check", data["file"]])[0] == 0
+
+
+def test_strict_leaves_no_warning(tmp_path):
+    code, loose = size_json(copy(HEX, tmp_path / "a"))
+    code_s, strict = size_json(copy(HEX, tmp_path / "b"), "--strict")
+    assert code == 0 and code_s == 0
+    d = design(load_config(strict["file"]))
+    assert not [r for r in d.checks_json["rules"] if r["status"] in ("warn", "fail")]
+    assert strict["mass_g"] >= loose["mass_g"]
+
+
+def test_strict_cannot_lift_a_pole_warning(tmp_path):
+    """The quad demo's poles warn in its wind whatever the hub (the spreader stress does not
+    depend on the hub), so sizing to the recommended figures has no answer."""
+    base = design(load_config(QUAD)).checks_json
+    assert next(r for r in base["rules"] if r["id"] == "wind-spreader")["status"] == "warn"
+    code, data = size_json(copy(QUAD, tmp_path), "--strict")
+    assert code == 1 and "wind-spreader" in data["unmet_rules"]
