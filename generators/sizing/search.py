@@ -41,8 +41,9 @@ class Outcome:
     design: object = None  # the Design, when design() accepted the point
 
     def key(self) -> tuple:
-        return (self.objective if self.objective is not None else math.inf,
-                self.mass_g if self.mass_g is not None else math.inf, sum(self.values), self.material)
+        inf = math.inf
+        return (inf if self.objective is None else self.objective, inf if self.mass_g is None else self.mass_g,
+                sum(self.values), self.material, self.point)
 
 
 def lowest_safety_factor(checks_json: dict) -> float | None:
