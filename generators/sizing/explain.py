@@ -53,7 +53,7 @@ def sensitivity(result: SizingResult, o: Outcome) -> list[dict]:
         down = space(space.step(o.point, i, -1)) if o.point[i] > d.lowest else None
         rows.append({
             "key": d.key, "value": o.values[i],
-            "step": (up.values[i] - o.values[i]),
+            "step": None if up.refusal == "outside the grid" else up.values[i] - o.values[i],
             "mass_up_g": up.mass_g, "mass_down_g": down.mass_g if down else None,
             "grams_per_step": (up.mass_g - o.mass_g) if up.mass_g is not None else None,
             "down_passes": bool(down and down.ok),

@@ -74,10 +74,12 @@ class Space:
     def _evaluate(self, point: tuple[int, ...]) -> Outcome:
         from generators.design import design
 
-        values = tuple(d.value(k) for d, k in zip(self.dims, point))
-        mat = self.material or self.raw.get("hub", {}).get("material", "hdpe")
+        from generators.standards.materials import get_material
+
+        mat = get_material(self.material or self.raw.get("hub", {}).get("material", "hdpe")).id
         if any(k < d.lowest or (d.highest is not None and k > d.highest) for d, k in zip(self.dims, point)):
-            return Outcome(mat, point, values, False, refusal="outside the stock table")
+            return Outcome(mat, point, tuple(math.nan for _ in point), False, refusal="outside the grid")
+        values = tuple(d.value(k) for d, k in zip(self.dims, point))
         try:
             d = design(parse_config(self.data(point)))
         except UserError as exc:

@@ -128,3 +128,17 @@ def test_strict_cannot_lift_a_pole_warning(tmp_path):
     assert next(r for r in base["rules"] if r["id"] == "wind-spreader")["status"] == "warn"
     code, data = size_json(copy(QUAD, tmp_path), "--strict")
     assert code == 1 and "wind-spreader" in data["unmet_rules"]
+
+
+def test_stock_grid_ends_at_the_table():
+    """Past the largest plate in the table a point is off the grid: refused, not a crash."""
+    from generators.sizing.search import Space
+    from generators.sizing.space import dimensions
+
+    raw = tomllib.loads(HEX.read_text(encoding="utf-8"))
+    dims = dimensions(load_config(HEX), raw, ["hub.thickness"], "stock")
+    assert dims[0].series == plate_thicknesses_mm("mm")
+    assert dims[0].value(dims[0].start) == 50.0  # 46 mm rounds up to the next plate
+    space = Space(raw, "mm", dims, None, "stock", False)
+    off = space((len(dims[0].series),))
+    assert not off.ok and off.refusal == "outside the grid"
