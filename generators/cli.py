@@ -16,6 +16,7 @@ COMMANDS = {
     "threads": ("generators.commands.threads", "tap drills, clearance holes and nuts for threads"),
     "build": ("generators.commands.build", "make the hub's solids, templates, manifest and report"),
     "check": ("generators.commands.check", "run the design rules and the wind-load estimate"),
+    "size": ("generators.commands.size", "find the lightest hub that passes every rule"),
 }
 
 CAUTION = ("Masts and antennas can kill: keep clear of power lines, follow local codes and the "

@@ -13,7 +13,7 @@ from generators.plan import limits as L
 from generators.plan.geometry import Vec, cross, dot, edge_distance, unit
 from generators.plan.model import Hole
 from generators.plan.print_profiles import (BRIDGE_LIMIT_MM, MIN_WALL_LINES, SLOT_DIRECTIONS, _basis,
-                                            pocket_surface_points, regions_of)
+                                            edge_distances, pocket_surface_points, regions_of)
 
 
 class PocketSearch:
@@ -155,7 +155,7 @@ class PocketSearch:
         # keep only points inside the body (the slot runs out through its exit face)
         z_ok = (pts[:, 2] > -1e-6) & (pts[:, 2] < self.T + 1e-6)
         outline = self.plan.body.outline
-        ed = np.array([edge_distance((float(p[0]), float(p[1])), outline) for p in pts])
+        ed = edge_distances(pts, outline)
         inside = z_ok & (ed > -1e-6)
         pts_in = pts[inside]
         for o in holes + pockets:
@@ -172,7 +172,7 @@ class PocketSearch:
             a = np.array(unit(pocket.axis))
             cpts = cpts[(cpts - np.array(pocket.entry_mm)) @ a > pocket.depth_mm - 1e-6]
         near = {"top": np.min(self.T - cpts[:, 2]), "bottom": np.min(cpts[:, 2]),
-                "side": min(edge_distance((float(p[0]), float(p[1])), outline) for p in cpts)}
+                "side": float(edge_distances(cpts, outline).min())}
         for face, d in near.items():
             if face == exit_face or (face == "side" and exit_face not in ("top", "bottom", None)):
                 # the slot leaves by this face; its exit must stay clear of the face edges

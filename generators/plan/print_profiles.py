@@ -119,6 +119,11 @@ def _poly_sdf(q: np.ndarray, poly: np.ndarray) -> np.ndarray:
     return np.where(inside, -best, best)
 
 
+def edge_distances(pts: np.ndarray, outline) -> np.ndarray:
+    """``geometry.edge_distance`` for many points at once (their x, y; negative outside)."""
+    return -_poly_sdf(np.asarray(pts, dtype=float)[:, :2], np.asarray(outline, dtype=float))
+
+
 def regions_of(hole: Hole) -> list[_Region]:
     """The material a hole removes, as prisms (countersink/counterbore as their full width)."""
     t0, t1 = -hole.lead_mm, hole.depth_mm + hole.extend_mm

@@ -11,7 +11,8 @@ import networkx as nx
 
 PKG = pathlib.Path(__file__).resolve().parents[2] / "generators"
 WRITER_LAYERS = ("generators.cad", "generators.drawings", "generators.report")
-LIGHT_LAYERS = ("generators.config", "generators.standards", "generators.plan", "generators.design")
+LIGHT_LAYERS = ("generators.config", "generators.standards", "generators.plan", "generators.design",
+                "generators.sizing")
 HEAVY = ("cadquery", "OCP", "ezdxf", "matplotlib", "trimesh", "vtk")
 
 
