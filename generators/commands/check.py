@@ -14,7 +14,8 @@ import textwrap
 from generators.report.figures import figure
 
 CAUTION = ("The wind figures are an estimate, not a structural certification: follow local codes,"
-           " the mast maker's ratings and licensed engineering practice; keep clear of power lines.")
+           " the mast maker's ratings and licensed engineering practice; keep clear of power lines,"
+           " never climb without fall protection, and wear eye protection when drilling.")
 
 
 def add_arguments(p: argparse.ArgumentParser) -> None:

@@ -63,7 +63,8 @@ class FastenerHoles:
                 gap = d - (pole - r_s) / cos_e  # to the pole, pushed over
                 run = thread_run(wall, ss.thread, self._mat_class(), self._series_for(ss.thread))
                 screw = set_screw(ss.thread.designation, gap, run.start_mm, run.end_mm, ss.length,
-                                  self.units, self.fmt, point=ss.point)
+                                  self.units, self.fmt, point=ss.point,
+                                  torque_nm=self._torque_nm(ss.torque, ss.thread))
                 holes.append(Hole(id=hid, kind="set_screw", face=ss.face, entry_mm=entry, axis=axis,
                                   diameter_mm=tap.drill.diameter_mm, depth_mm=d, drill=tap.drill.name,
                                   thread=ss.thread.designation, thread_percent=tap.thread_percent,
@@ -81,6 +82,12 @@ class FastenerHoles:
                 raise UserError(key, f"{what} would break into socket {s.id}"
                                 f" (web {self.fmt(max(gap, 0))})",
                                 f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
+
+    def _torque_nm(self, given, thread) -> float:
+        """The tightening torque the holding checks assume: the config's, or the table's."""
+        from generators.standards.holding import default_torque_nm
+
+        return given if given is not None else default_torque_nm(thread, self._mat_class())[0]
 
     def _clamps(self, sockets: list[Hole]) -> list[Hole]:
         mc = self.cfg.mast_clamp
@@ -114,7 +121,8 @@ class FastenerHoles:
             self._clear_of_sockets(key, entry, axis, depth, r_c, sockets, what=f"clamp hole {hid}")
             run = thread_run(depth, mc.thread, self._mat_class(), self._series_for(mc.thread))
             screw, cb_depth = clamp_screw(mc.thread.designation, depth, self.bore - self.mast_od,
-                                          run.start_mm, run.end_mm, self.units, self.fmt)
+                                          run.start_mm, run.end_mm, self.units, self.fmt,
+                                          torque_nm=self._torque_nm(mc.torque, mc.thread))
             cb = None
             if cb_depth > 0:
                 from generators.standards.fasteners import counterbore

@@ -35,7 +35,7 @@ def printed_screws(machined: HubPlan, cfg, holes: list[Hole], pockets: list[Hole
             cos_e = math.cos(math.radians(cfg.spreaders.elevation))
             gap = orig.depth_mm - (cfg.spreaders.diameter - sock.radius_mm) / cos_e
             screw = set_screw(orig.thread, gap, start, end, cfg.set_screws.length, cfg.units, fmt, nut=nut,
-                               point=cfg.set_screws.point)
+                               point=cfg.set_screws.point, torque_nm=cfg.set_screws.torque)
         elif h.kind == HoleKind.CLAMP:
             screw, _ = clamp_screw(orig.thread, orig.depth_mm, machined.bore_mm - machined.mast_od_mm,
                                    start, end, cfg.units, fmt)

@@ -55,7 +55,7 @@ def _designation(thread: str, length_mm: float, units: str) -> str:
 
 
 def set_screw(thread: str, gap_mm: float, start_mm: float, end_mm: float, length_mm: float | None,
-              units: str, fmt, nut: bool = False, point: str = "cup") -> Screw:
+              units: str, fmt, nut: bool = False, point: str = "cup", torque_nm: float | None = None) -> Screw:
     """A set screw whose point sits ``gap_mm`` from the face on the pole, threaded in
     [start_mm, end_mm] (a tapped run, a captive nut or an insert)."""
     from generators.standards.fasteners import set_screw_lengths
@@ -71,13 +71,21 @@ def set_screw(thread: str, gap_mm: float, start_mm: float, end_mm: float, length
     sits = f"{fmt(below)} below the face" if below >= 0 else f"{fmt(-below)} proud of the face"
     through = " through the clearance hole" if start_mm > 1e-6 else ""
     note = (f"tight on the pole it sits {sits}, {fmt(max(in_thread, 0.0))} of it {where};"
-            f" tighten with a hex key{through} until it bites, then snug")
+            f" tighten with a hex key{through} " + (f"to {torque_text(torque_nm, units)}, the torque the"
+                                                   " crush and holding checks assume" if torque_nm else
+                                                   "until it bites, then snug"))
     return Screw(designation=_designation(thread, length_mm, units), kind="set screw", thread=thread,
                  length_mm=length_mm, standard=SET_SCREW_BY_POINT.get(point, SET_SCREW_STD), note=note)
 
 
+def torque_text(nm: float, units: str) -> str:
+    """A tightening torque as the config's users say it (1 lbf in = 0.112985 N m, NIST SP 811)."""
+    lbf_in = nm / 0.112985
+    return f"{lbf_in:.0f} in-lbf ({nm:.1f} N m)" if units == "in" else f"{nm:.1f} N m ({lbf_in:.0f} in-lbf)"
+
+
 def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end_mm: float,
-                units: str, fmt, key: str = "mast_clamp.thread") -> tuple[Screw, float]:
+                units: str, fmt, key: str = "mast_clamp.thread", torque_nm: float | None = None) -> tuple[Screw, float]:
     """The clamp screw for a hole reaching the bore wall at ``wall_mm``, threaded in
     [start_mm, end_mm], and its counterbore depth (0 when the head stays on the face)."""
     from generators.standards.fasteners import cap_screw_lengths, cap_screw_thread_mm
@@ -103,7 +111,8 @@ def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end
             if cbore == 0 else "the head goes down the counterbore")
     note = (f"its point passes the bore wall by {fmt(length + cbore - wall_mm)} with the head down, so it bites"
             f" the mast first; {head}; thread {fmt(start_mm)} to {fmt(end_mm)} from the face;"
-            " tighten with the hex key until it bites, then a quarter turn (common practice)")
+            + (f" tighten with the hex key to {torque_text(torque_nm, units)}, the torque the holding check assumes"
+               if torque_nm else " tighten with the hex key until it bites, then a quarter turn (common practice)"))
     return Screw(designation=designation, kind="cap screw", thread=thread, length_mm=length,
                  standard=CAP_SCREW_STD, note=note), cbore
 
