@@ -39,6 +39,8 @@ def check_hard_limits(cfg: Config, plan: HubPlan, walls, edges: bool = True) -> 
         b = None if w.b.startswith("face:") else plan.hole(w.b)
         if b is None and a.kind in POCKET_KINDS:
             continue  # a nut slot opens onto a face by design; the printed rules judge it
+        if b is not None and _ORDER.index(_kind(b)) < _ORDER.index(_kind(a)):
+            a, b = b, a  # name the cut that can move first
         limit = L.MIN_BORE_WALL_MM if (a.kind == "bore" and b is None) else web
         if w.mm >= limit - 1e-9:
             continue

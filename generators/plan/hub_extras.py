@@ -71,7 +71,10 @@ class ExtraHoles:
             if math.hypot(*spec.at) - r_out < self.Rb + L.MIN_WEB_MM:
                 raise UserError(f"{key}.at", f"hole {spec.id} would break into the bore",
                                 f"at least {self.fmt(self.Rb + L.MIN_WEB_MM + r_out)} from the mast axis")
-            self._clear_of_sockets(f"{key}.at", entry, axis, depth, dia / 2, sockets, what=f"hole {spec.id}")
+            # a quick capsule check; the walls measured on the true shapes (plan/hard_limits.py)
+            # decide, so a blind hole's capsule stops a radius short of its flat bottom
+            self._clear_of_sockets(f"{key}.at", entry, axis, depth if through else max(depth - dia / 2, 0.0),
+                                   dia / 2, sockets, what=f"hole {spec.id}")
             end = (entry[0] + axis[0] * depth, entry[1] + axis[1] * depth, entry[2] + axis[2] * depth)
             for other in existing + out:
                 if other.kind in ("bore", "socket"):
