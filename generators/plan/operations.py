@@ -154,6 +154,8 @@ class _Machined(_Face):
             plans.append((h, c))
         pilots: dict[tuple, list[Hole]] = {}
         for h, c in plans:
+            if c.method == "cut" and c.drill is None:
+                continue  # a Forstner bit's spur, a hole saw's arbor drill or a step drill's tip starts it
             first = c.drill.diameter_mm if c.drill is not None else h.diameter_mm
             if needs_pilot(first, self.units):
                 p = pilot_drill(first, self.series)
