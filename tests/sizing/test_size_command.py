@@ -112,13 +112,14 @@ def test_failing_start_is_grown(tmp_path):
     assert run(["check", data["file"]])[0] == 0
 
 
-def test_strict_leaves_no_warning(tmp_path):
+def test_strict_cannot_lift_warnings_the_hub_does_not_decide(tmp_path):
+    """The metric demo warns on its brittle poles in its wind and on turning on the mast
+    (friction cannot hold a gust's torque): no hub size lifts those, so --strict has no
+    answer and says which rules bind, while the plain search finds one."""
     code, loose = size_json(copy(HEX, tmp_path / "a"))
     code_s, strict = size_json(copy(HEX, tmp_path / "b"), "--strict")
-    assert code == 0 and code_s == 0
-    d = design(load_config(strict["file"]))
-    assert not [r for r in d.checks_json["rules"] if r["status"] in ("warn", "fail")]
-    assert strict["mass_g"] >= loose["mass_g"]
+    assert code == 0 and code_s == 1
+    assert set(strict["unmet_rules"]) & {"wind-spreader", "mast-retention"}
 
 
 def test_strict_cannot_lift_a_pole_warning(tmp_path):
