@@ -176,10 +176,15 @@ def _add_walls(record: dict[str, Any], d: Design, solid: dict | None) -> None:
 
 
 def _add_tap_depths(record: dict[str, Any], d: Design) -> None:
-    """``tap_depth_mm`` on every tapped hole of the manifest, as the design's tap steps cut it."""
+    """``tap_depth_mm`` (threaded length) and ``tap_to_mm`` (how far from the face the thread
+    ends, the tap step's depth) on every tapped hole of the manifest, as the tap steps cut it."""
     from generators.plan.operations import tap_depth_mm
 
     tapped = {op_hole for op in d.operations if op.operation == "tap" for op_hole in op.holes}
     for h in record.get("holes", []):
         if h.get("id") in tapped:
-            h["tap_depth_mm"] = round(tap_depth_mm(d.plan.hole(h["id"]), d.material_class), 6)
+            hole = d.plan.hole(h["id"])
+            length = tap_depth_mm(hole, d.material_class)
+            start = hole.tapped.start_mm if hole.tapped is not None else 0.0
+            h["tap_depth_mm"] = round(length, 6)  # the threaded length
+            h["tap_to_mm"] = round(start + length, 6)  # from the face: the tap step's depth

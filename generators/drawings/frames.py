@@ -7,9 +7,12 @@ import math
 from dataclasses import dataclass
 from typing import Any
 
-from generators.drawings.primitives import TILT_MIN_DEG
-from generators.plan.geometry import Pt, Vec, dot
+from generators.plan.geometry import Pt, Vec
 from generators.plan.model import Face, Hole
+from generators.plan.tilt_notes import Tilt, face_axes
+from generators.plan.tilt_notes import tilt_of as plan_tilt_of
+
+__all__ = ["Frame", "Tilt", "rim_join_azimuth", "tilt_of"]
 
 def rim_join_azimuth(holes: list[Hole]) -> float:
     """Where the wrap strip starts: the middle of the widest gap between rim holes, so no
@@ -41,11 +44,7 @@ class Frame:
 
     def axes_at(self, p: Vec) -> tuple[Vec, Vec, Vec]:
         """(outward normal, u, v) of the face at ``p``."""
-        f = self.face
-        if f.kind != "rim":
-            return f.normal, f.u_axis, f.v_axis
-        t = math.atan2(p[1], p[0])
-        return (math.cos(t), math.sin(t), 0.0), (-math.sin(t), math.cos(t), 0.0), (0.0, 0.0, 1.0)
+        return face_axes(self.face, p)
 
     def record(self) -> dict[str, Any]:
         if self.face.kind == "rim":
@@ -55,25 +54,5 @@ class Frame:
         return {"kind": "plane", "origin_mm": list(f.origin), "u_axis": list(f.u_axis), "v_axis": list(f.v_axis)}
 
 
-@dataclass(frozen=True)
-class Tilt:
-    deg: float
-    du: float  # unit in-plane direction the drill tip moves as it goes in
-    dv: float
-    towards: str  # "the bottom face", "the top face" or a direction on the sheet
-
-
 def tilt_of(frame: Frame, hole: Hole) -> Tilt | None:
-    n, u, v = frame.axes_at(hole.entry_mm)
-    du, dv = dot(hole.axis, u), dot(hole.axis, v)
-    s = math.hypot(du, dv)
-    deg = math.degrees(math.asin(min(s, 1.0)))
-    if deg < TILT_MIN_DEG:
-        return None
-    du, dv = du / s, dv / s
-    side = frame.face.kind in ("flat", "chamfer", "rim")
-    if side and abs(du) < 1e-6:
-        towards = "the bottom face" if dv < 0 else "the top face"
-    else:
-        towards = f"{math.degrees(math.atan2(dv, du)) % 360:.1f} deg on the sheet (0 = right, 90 = up)"
-    return Tilt(deg=deg, du=du, dv=dv, towards=towards)
+    return plan_tilt_of(frame.face, hole)

@@ -29,7 +29,7 @@ SMALL_MM = 2.0
 CROSS_EXTRA_MM = 4.0  # crosshair arms run this far past the hole circle
 DATUM_ARROW_MM = 8.0
 # A hole is tilted when its axis leans more than this from square to its face.
-TILT_MIN_DEG = 0.05
+from generators.plan.tilt_notes import TILT_MIN_DEG  # noqa: E402,F401
 # The wrap strip runs on past the join by a glue tab that the start of the strip is laid over.
 GLUE_TAB_MM = 12.0
 

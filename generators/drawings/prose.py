@@ -11,6 +11,7 @@ from generators.drawings.primitives import UNIT_WORDS, Sheet, coord, id_list
 from generators.plan.geometry import Pt
 from generators.plan.model import Hole
 from generators.plan.shop import drill_label
+from generators.plan.tilt_notes import tilt_notes
 
 
 class SheetProse:
@@ -84,16 +85,6 @@ class SheetProse:
                          axis))
         return rows
 
-    def _jig_note(self) -> str:
-        from generators.plan.jig import jig_reason
-
-        if self.face.kind != "flat" or jig_reason(self.plan, self.cfg) is not None:
-            return ""
-        falls = any(h.kind == "socket" and h.axis[2] > 1e-9 for h in self.plan.holes_on(self.face.id))
-        against = "top face against the fence (this socket falls outward)" if falls else "bottom face against the fence"
-        return (" The angle jig of this build (jig.dxf, jig.step, jig.stl) is that wedge: the hub on the flat"
-                f" opposite this one, {against}.")
-
     def _notes(self, tilts: dict[str, Tilt]) -> list[str]:
         f, u = self.face, self.units
         notes = []
@@ -119,22 +110,7 @@ class SheetProse:
             notes.append("Seen from outside with the top face up: the edge marked 'this edge towards the top face'"
                          " goes to the top face. Datum 0,0: the middle of the bottom edge.")
         notes.append(f"Hole table X and Y from the datum in {UNIT_WORDS[u]}, as printed (X right, Y up).")
-        by_tilt: dict[tuple, list[str]] = {}
-        for hid, t in tilts.items():
-            by_tilt.setdefault((round(t.deg, 2), t.towards), []).append(hid)
-        for (deg, towards), ids in by_tilt.items():
-            if "face" in towards:
-                high, low = (("top-face", "bottom face") if towards == "the bottom face"
-                             else ("bottom-face", "top face"))
-                notes.append(f"Tilt for {id_list(ids)}: the drill runs {deg:g} deg off square to the face, towards"
-                             f" {towards}. With this face up, tilt the drill-press table {deg:g} deg so the {high}"
-                             f" edge is higher, or lay the part on a {deg:g} deg wedge with its {low} towards the low"
-                             f" end (against the fence), or use a drill guide set to {deg:g} deg. Spot and drill on the"
-                             " crosshair with the work tilted. The arrow shows where the tip goes; the section beside"
-                             " the face is at the true angle, to set a bevel from." + self._jig_note())
-            else:
-                notes.append(f"Tilt for {id_list(ids)}: the drill runs {deg:g} deg off square to the face, towards"
-                             f" {towards}; use a drill guide or an angle plate set to {deg:g} deg.")
+        notes += tilt_notes(self.plan, self.cfg, self.face.id)
         for kind, what in (("set_screw", "the sockets"), ("clamp", "the bore")):
             ids = [h.id for h in self.holes if h.kind == kind]
             if ids:

@@ -21,10 +21,12 @@ def tap_hole(thread, material_class: str, series: Iterable[str]) -> TapDrill:
 
 
 def drill_name_for(diameter_mm: float, series: Iterable[str]) -> str | None:
-    """The name of a stock drill of exactly this diameter, or None (bored or milled)."""
-    for d in drills(tuple(series)):
-        if abs(d.diameter_mm - diameter_mm) <= MATCH_MM:
-            return d.name
+    """The name of a stock drill of this diameter (within ``SAME_SIZE_MM``), or None (bored or milled)."""
+    from generators.standards.drills import SAME_SIZE_MM
+
+    best = min(drills(tuple(series)), key=lambda d: abs(d.diameter_mm - diameter_mm), default=None)
+    if best is not None and abs(best.diameter_mm - diameter_mm) <= SAME_SIZE_MM:
+        return best.name
     return None
 
 

@@ -22,7 +22,7 @@ from generators.units import format_length
 STAGE_MARK, STAGE_BORE, STAGE_SOCKETS, STAGE_HOLES = 0, 1, 2, 3
 STAGE_NAMES = {STAGE_MARK: "mark", STAGE_BORE: "bore", STAGE_SOCKETS: "sockets", STAGE_HOLES: "holes"}
 # A hole is tilted when its axis leans more than this from square to its face.
-TILT_MIN_DEG = 0.05
+from generators.plan.tilt_notes import TILT_MIN_DEG  # noqa: E402
 
 
 @dataclass(frozen=True)
@@ -218,6 +218,17 @@ class _Machined(_Face):
         return (f"{self.L(depth_mm)} is past a hand tap's reach of about {self.L(reach)} (its length"
                 " less the square in the wrench): a tap extension or a long-shank (pulley) tap")
 
+    def _tap_on(self, hs: list[Hole]) -> str:
+        """A thread that ends where its hole breaks into a socket or the bore: the tap's chamfer
+        cuts only part threads over its first 3 to 5 pitches (common practice), so it runs on
+        into the void until full threads fill the wall."""
+        ends = [h for h in hs if h.kind in (HoleKind.SET_SCREW, HoleKind.CLAMP) and h.tapped is not None]
+        if not ends or len(ends) != len(hs):
+            return ""
+        into = "the socket" if all(h.kind == HoleKind.SET_SCREW for h in hs) else "the bore"
+        return (f"run the tap on into {into} until its full threads are through the wall (a plug tap's"
+                " chamfer cuts only part threads over its first 3 to 5 pitches), then deburr inside")
+
     def _depth_key(self, h: Hole) -> tuple:
         tilt = hole_tilt_deg(self.plan, h)
         return (None if h.through else round(h.depth_mm, 4), h.through, round(tilt, 2) if tilt > 0 else None)
@@ -256,6 +267,7 @@ class _Machined(_Face):
         for (thread, depth, through, pct, start), hs in taps.items():
             blind = not through and all(h.kind == HoleKind.EXTRA for h in hs)
             notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
+                     self._tap_on(hs),
                      f"thread only the last {self.L(depth - start)} ({self.L(start)} to {self.L(depth)} from"
                      " the face), through the clearance hole" if start > 0 else "",
                      self.tap_reach(thread, depth if not through else max(h.depth_mm for h in hs)),

@@ -198,12 +198,28 @@ def plan_sleeve(cfg: Config, plan: HubPlan, spec: Reducer, key: str = "reducers[
     if slit and clamps:
         notes.append("the clamp screw bears on the slit sleeve and closes it onto the mast")
     elif clamps:
-        notes.append("the clamp screw passes through the sleeve to the mast: use a screw"
-                     f" {fmt(holes[0].depth_mm)} (the sleeve wall there) longer")
+        notes.append(_through_sleeve_screw(clamps[0], holes[0], bore - od + id_ - mast.od_mm, fmt))
     return SleevePlan(key=key, mast_designation=mast.designation, mast_od_mm=mast.od_mm, od_mm=od,
                       id_mm=id_, length_mm=length, fit_mm=fit, clearance_mm=clearance, process=process,
                       bore_mm=bore, flange=flange, slit=slit, key_flat=key_flat, holes=holes,
                       notes=tuple(notes))
+
+
+def _through_sleeve_screw(hub_hole: Hole, sleeve_hole: Hole, gap_mm: float, fmt) -> str:
+    """The clamp screw that passes the sleeve wall and still bites the mast: the hub's wall,
+    the sleeve's, both clearances (sleeve and mast pushed to the far side) and the pass of
+    ``CLAMP_PASS_MM`` (generators/plan/screws.py)."""
+    from generators.plan.screws import CLAMP_PASS_MM, sleeve_clamp_length
+
+    thread = hub_hole.thread or ""
+    cbore = hub_hole.counterbore.depth_mm if hub_hole.counterbore is not None else 0.0
+    reach = hub_hole.depth_mm + sleeve_hole.depth_mm + gap_mm + CLAMP_PASS_MM
+    length, words = sleeve_clamp_length(thread, reach, cbore, fmt)
+    if length is None:
+        return f"the clamp screw passes through the sleeve to the mast: {words}"
+    return (f"the clamp screw passes through the sleeve ({fmt(sleeve_hole.depth_mm)} of wall there) to the"
+            f" mast: use a {words} socket head cap screw with this sleeve (its point passes the mast surface"
+            f" by at least {fmt(CLAMP_PASS_MM)} with the head down)")
 
 
 def _flange(plan: HubPlan, od: float, base: str, fmt) -> Flange:

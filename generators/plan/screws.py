@@ -117,6 +117,20 @@ def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end
                  standard=CAP_SCREW_STD, note=note), cbore
 
 
+def sleeve_clamp_length(thread: str, reach_mm: float, counterbore_mm: float, fmt) -> tuple[float | None, str]:
+    """The stock cap screw that reaches ``reach_mm`` from the face (through a sleeve to its
+    mast) with its head on the counterbore floor, and words saying so."""
+    from generators.standards.fasteners import cap_screw_lengths
+
+    lengths = cap_screw_lengths(thread)
+    need = reach_mm - counterbore_mm
+    longer = [x for x in lengths if x >= need - 1e-9]
+    if not longer:
+        return None, (f"no stock {thread} cap screw reaches ({fmt(need)} under the head wanted, {fmt(max(lengths))}"
+                      " the longest): use a slit sleeve, or a length of threaded rod with a jam nut")
+    return min(longer), f"{thread} x {fmt(min(longer))}"
+
+
 def tapped_extra_screw(thread: str, engaged_mm: float, fmt) -> Screw:
     """A screw into a tapped extra hole: its length depends on what it holds."""
     return Screw(designation=f"{thread} screw", kind="screw", thread=thread, length_mm=None,

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from generators.standards.drills import INCH_SERIES, METRIC_SERIES, Drill, drills, find_drill
+from generators.standards.drills import INCH_SERIES, METRIC_SERIES, SAME_SIZE_MM, Drill, drills, find_drill
 from generators.units import MM_PER_IN
 
 # Drills over 10 mm (3/8 in in an inch shop) wander and grab unless a pilot goes first; the
@@ -27,8 +27,8 @@ HOLE_SAW_DEPTH_MM = 38.0
 # catalogues); diameters 12 to 60 mm in common sets (from memory).
 ANNULAR_DEPTH_MM = 50.0
 ANNULAR_MAX_DIAMETER_MM = 60.0
-# Drill names match a plan diameter within this much.
-MATCH_MM = 0.02
+# Drill names match a plan diameter within this much (0.001 in).
+MATCH_MM = SAME_SIZE_MM
 
 
 def drill_series(cfg) -> tuple[str, ...]:

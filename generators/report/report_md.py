@@ -125,6 +125,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     """The whole report as markdown text, rendered from the design."""
     from generators.plan.operation_text import step_row
     from generators.plan.operations import STAGE_NAMES
+    from generators.plan.tilt_notes import tilt_notes
 
     cfg, plan, checks = d.config, d.plan, d.checks
     md = _Md(cfg.units)
@@ -195,6 +196,11 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
             md.add(f"Template: `{templates[face_id]}`", "")
         md.table(["step", "operation", "holes", "tool", "depth", "notes"], [step_row(op, units) for op in ops])
         ids = {h for op in ops for h in op.holes}
+        for note in (tilt_notes(plan, cfg, face_id) if plan.process != "printed" else []):
+            if any(i in ids for i in note.removeprefix("Tilt for ").split(":")[0].split(", ")):
+                md.add(f"- {note}")
+        if any(op.tilt_deg for op in ops):
+            md.add("")
         holes = [h for h in plan.holes_on(face_id) if h.id in ids]
         if holes:
             md.table(["hole", "kind", "u", "v", "diameter", "thread", "note"], _positions(holes, plan, md))

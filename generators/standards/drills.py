@@ -14,6 +14,10 @@ from generators.units import MM_PER_IN
 SERIES = ("fractional", "number", "letter", "metric")
 INCH_SERIES = ("fractional", "number", "letter")
 METRIC_SERIES = ("metric",)
+# A planned hole is made by a stock drill within 0.001 in (0.0254 mm) of its size: finer than
+# a twist drill holds its size in the cut (common practice), so 41/64 in (0.6406 in) drills a
+# 0.640 in socket.
+SAME_SIZE_MM = 0.0254
 
 
 @dataclass(frozen=True)

@@ -80,3 +80,45 @@ def test_every_tapped_hole_has_its_tap_depth(builds):
         for h in r.manifest["holes"]:
             if h["thread"] and h["kind"] not in ("nut_pocket", "insert_pocket"):
                 assert 0 < h["tap_depth_mm"] <= h["depth_mm"] + 1e-9, h["id"]
+
+
+def test_tap_step_depth_is_where_the_manifest_says_the_thread_ends(builds):
+    """The report's and templates' tap step and the manifest's ``tap_to_mm`` are one figure."""
+    seen = 0
+    for r in builds.values():
+        holes = {h["id"]: h for h in r.manifest["holes"]}
+        for op in r.manifest["operations"]:
+            if op["operation"] != "tap" or op["through"]:
+                continue
+            for hid in op["holes"]:
+                h = holes[hid]
+                assert op["depth_mm"] == pytest.approx(h["tap_to_mm"], abs=1e-4), hid
+                assert h["tap_to_mm"] == pytest.approx(h["thread_start_mm"] + h["tap_depth_mm"], abs=1e-4)
+                seen += 1
+    assert seen > 0
+
+
+def test_threads_ending_in_a_socket_or_the_bore_are_tapped_on_through_the_wall(builds):
+    """A plug tap stopped at the wall leaves part threads there, where the screw bears (common practice)."""
+    r = builds["four-spreader-conduit.toml"]
+    taps = [o for o in r.manifest["operations"] if o["operation"] == "tap"]
+    assert taps and all("run the tap on into" in o["note"] for o in taps
+                        if all(h[0] in "TC" for h in o["holes"]))
+
+
+def test_the_report_gives_the_templates_tilt_notes(builds):
+    """A tilted socket's set-up (angle, which way, jig) is in the report as on its template."""
+    from generators.plan.tilt_notes import tilt_notes
+    from generators.config import load_config
+    from generators.plan.hub import build_plan
+
+    r = builds["spider-quad-tilted.toml"]
+    report = (r.folder / "report.md").read_text()
+    cfg = load_config(CONFIGS / "spider-quad-tilted.toml")
+    plan = build_plan(cfg)
+    notes = [n for f in plan.faces for n in tilt_notes(plan, cfg, f.id)]
+    assert notes, "the tilted demo has tilted holes"
+    for n in notes:
+        assert n in report
+    dxf_text = " ".join(p.read_text(errors="ignore") for p in (r.folder / "templates").glob("*.dxf"))
+    assert "Tilt for" in dxf_text

@@ -90,3 +90,25 @@ def test_slit_and_flat_face_the_clamp_screw():
 
 def test_stem_is_named_after_the_mast_od():
     assert sleeve_stem(38.354) == "sleeve-38.35mm" and sleeve_stem(30.0) == "sleeve-30mm"
+
+
+def test_a_clamp_screw_through_the_sleeve_is_a_stock_length_that_reaches_the_mast():
+    """Hub wall + sleeve wall + both clearances + the 1 mm pass (common practice), head on the
+    counterbore floor: the shortest ISO 4762 stock length (from memory) that covers it."""
+    from generators.plan.screws import CLAMP_PASS_MM
+    from generators.standards.fasteners import cap_screw_lengths
+
+    cfg = config(mast_clamp={"thread": "M5", "count": 1, "height": 36})
+    plan = build_plan(cfg)
+    clamps = [h for h in plan.holes if h.kind == "clamp"]
+    assert clamps, "the helper config has a clamp screw"
+    (s,) = plan_sleeves(cfg, plan, ["1 NPS"])
+    hub, sl = clamps[0], s.holes[0]
+    cbore = hub.counterbore.depth_mm if hub.counterbore is not None else 0.0
+    need = hub.depth_mm + sl.depth_mm + (plan.bore_mm - s.od_mm) + (s.id_mm - s.mast_od_mm) + CLAMP_PASS_MM - cbore
+    stock = [x for x in cap_screw_lengths(hub.thread) if x >= need - 1e-9]
+    note = next(n for n in s.notes if "passes through the sleeve" in n)
+    if stock:
+        assert f"x {min(stock):g} mm socket head cap screw" in note, note
+    else:
+        assert "no stock" in note, note
