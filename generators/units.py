@@ -201,3 +201,34 @@ def format_both(mm: float, units: str = "mm") -> str:
     if units == "in":
         return f"{format_length(mm, 'in')} ({mm:.2f} mm)"
     return f"{format_length(mm, 'mm')} ({mm / MM_PER_IN:.3f} in)"
+
+
+# Loads in the user's units; exact by definition: 1 lbf = 4.4482216152605 N, 1 ft = 0.3048 m,
+# 1 in = 0.0254 m (NIST SP 811).
+LBF_N = 4.4482216152605
+FT_M = 0.3048
+
+
+def format_force(n: float, units: str = "mm", digits: int = 0) -> str:
+    """``272 N``; in an inch config ``61.2 lbf (272 N)``."""
+    si = f"{n:.{digits}f} N"
+    return f"{n / LBF_N:.1f} lbf ({si})" if units == "in" else si
+
+
+def format_moment(nm: float, units: str = "mm", digits: int = 1) -> str:
+    """``237.7 N m``; in an inch config ``175.3 ft-lbf (237.7 N m)``."""
+    si = f"{nm:.{digits}f} N m"
+    return f"{nm / (LBF_N * FT_M):.1f} ft-lbf ({si})" if units == "in" else si
+
+
+def format_pressure(pa: float, units: str = "mm") -> str:
+    """A wind pressure: ``783 Pa``; in an inch config ``16.4 psf (783 Pa)``."""
+    psf = pa * FT_M ** 2 / LBF_N
+    return f"{psf:.1f} psf ({pa:.0f} Pa)" if units == "in" else f"{pa:.0f} Pa"
+
+
+def format_stress(mpa: float, units: str = "mm", digits: int = 0) -> str:
+    """A stress: ``130 MPa``; in an inch config ``18.9 ksi (130 MPa)``."""
+    ksi = mpa * 1e6 * 0.0254 ** 2 / LBF_N / 1000.0
+    si = f"{mpa:.{digits}f} MPa"
+    return (f"{ksi:.2f} ksi ({si})" if ksi < 10 else f"{ksi:.1f} ksi ({si})") if units == "in" else si

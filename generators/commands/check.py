@@ -27,21 +27,26 @@ def wind_lines(wind: dict, units: str) -> list[str]:
     from generators.plan.rules import speed_text
 
     w = wind
-    lines = [f"wind  {speed_text(w['speed_m_s'], units)}: dynamic pressure {w['pressure_pa']:.0f} Pa"
+    from generators.units import format_force as F
+    from generators.units import format_moment as M
+    from generators.units import format_pressure as P
+    from generators.units import format_stress as S
+
+    lines = [f"wind  {speed_text(w['speed_m_s'], units)}: design pressure {P(w['pressure_pa'], units)}"
              f" ({w.get('pressure_basis') or 'reference height'})"]
     if w["force_per_spreader_n"] is None:
         return lines + ["      loads not estimated (no tip position: spreaders.tip_radius or tip_spacing)"]
     if w.get("plate_stress_mpa") is not None:  # a plate hub: U-bolt and plate figures
-        held = (f"      spreader stress {w['spreader_stress_mpa']:.0f} MPa, plate bending {w['plate_stress_mpa']:.0f} MPa,"
-                f" U-bolt leg {w['u_bolt_leg_tension_n']:.0f} N")
+        held = (f"      spreader stress {S(w['spreader_stress_mpa'], units)}, plate bending"
+                f" {S(w['plate_stress_mpa'], units)}, U-bolt leg {F(w['u_bolt_leg_tension_n'], units)}")
         where = "the outer U-bolt"
     else:
-        held = (f"      spreader stress {w['spreader_stress_mpa']:.0f} MPa, bearing on the socket"
-                f" {w['bearing_pressure_mpa']:.1f} MPa, set-screw pull {w['set_screw_pull_n']:.0f} N")
+        held = (f"      spreader stress {S(w['spreader_stress_mpa'], units)}, bearing on the socket"
+                f" {S(w['bearing_pressure_mpa'], units, 1)}, set-screw pull {F(w['set_screw_pull_n'], units)}")
         where = "the socket mouth"
     lines += [
-        f"      force per spreader {w['force_per_spreader_n']:.1f} N,"
-        f" moment at {where} {w['moment_at_hub_nm']:.1f} N m",
+        f"      force per spreader {F(w['force_per_spreader_n'], units, 1)},"
+        f" moment at {where} {M(w['moment_at_hub_nm'], units)}",
         held,
         f"      lowest safety factor {w['safety_factor']:.2f}"
         if w["safety_factor"] is not None else "      no safety factor computed",

@@ -66,6 +66,24 @@ def _torque(value, info):
     return float(m[1]) * _TORQUE[unit]
 
 
+# Force units, exact by definition: 1 lbf = 4.4482216152605 N (NIST SP 811).
+_FORCE = {"n": 1.0, "kn": 1000.0, "lbf": 4.4482216152605, "lb": 4.4482216152605}
+
+
+def _force(value, info):
+    """A force in N: a bare number is N; a string may say "N", "kN" or "lbf"."""
+    if isinstance(value, (int, float)) and not isinstance(value, bool):
+        return float(value)
+    import re
+
+    m = re.fullmatch(r"\s*([0-9]*\.?[0-9]+)\s*([A-Za-z]+)\s*", str(value))
+    unit = m and m[2].strip().lower()
+    if not m or unit not in _FORCE:
+        raise UserError(info.field_name or "force", f"{value!r} is not a force",
+                        'a number in N, or "50 N", "0.2 kN", "11 lbf"')
+    return float(m[1]) * _FORCE[unit]
+
+
 Length = Annotated[float, BeforeValidator(_wrap(_length, "length"))]
 """A length in mm."""
 Angle = Annotated[float, BeforeValidator(_wrap(_angle, "angle"))]
@@ -76,6 +94,8 @@ Speed = Annotated[float, BeforeValidator(_wrap(_speed, "speed"))]
 """A speed in m/s."""
 Torque = Annotated[float, BeforeValidator(_wrap(_torque))]
 """A tightening torque in N m."""
+Force = Annotated[float, BeforeValidator(_wrap(_force))]
+"""A force in N."""
 
 
 def field_kind(annotation, metadata=()) -> str | None:

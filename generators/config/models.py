@@ -9,7 +9,7 @@ from typing import Annotated, Literal
 
 from pydantic import BaseModel, BeforeValidator, ConfigDict, Field, ValidationInfo, field_validator, model_validator
 
-from generators.config.fields import Angle, Azimuth, Length, Speed, Torque, _units, _wrap
+from generators.config.fields import Angle, Azimuth, Force, Length, Speed, Torque, _units, _wrap
 from generators.errors import UserError
 from generators.units import length_mm
 
@@ -232,7 +232,7 @@ class Loads(Section):
     wire_diameter: Annotated[Length, Field(ge=0)] = 0.0
     wire_length_per_spreader: Annotated[Length, Field(ge=0)] = 0.0
     spreader_material: MaterialId = "fiberglass"
-    wire_tension: Annotated[float, Field(ge=0, le=5000)] = 0.0  # N pre-tension at each tip
+    wire_tension: Annotated[Force, Field(ge=0, le=5000)] = 0.0  # N pre-tension at each tip
     wire_angle: Annotated[Angle, Field(ge=0, le=180)] = 90.0  # wire pull from the pole axis
     ice_thickness: Annotated[Length, Field(ge=0, le=100)] = 0.0  # radial ice (plan/ice.py)
     height: Annotated[Length, Field(ge=1000, le=200000)] | None = None  # 1 to 200 m above ground: EN 1991-1-4 peak pressure (plan/wind_height.py)

@@ -3,12 +3,16 @@
 Wind model (SI; an estimate, not a structural certification). The worst case for the plate
 is wind square to it, across every pole at once:
 
-1. ``q = 1/2 rho V^2`` and ``w = q Cd d`` per metre of pole, the wire share ``F_w = q Cd d_w L_w``
-   at the tip (as in ``plan/loads.py``: White, "Fluid Mechanics"; Hoerner, "Fluid-Dynamic
-   Drag"; from memory).
-2. The pole beyond its outer U-bolt B is a cantilever of length ``L`` (B to the tip):
-   ``M_B = w L^2 / 2 + F_w L``, ``F = w L + F_w`` (Gere, "Mechanics of Materials", from memory);
-   its stress ``sigma = M_B (D/2) / I``, ``I = pi (D^4 - d^4) / 64`` (Roark, hollow circle).
+1. ``q`` as for the block hub (``plan/loads.py`` steps 1 and 9: ``1/2 rho V^2`` at reference
+   height, or the EN 1991-1-4 peak velocity pressure at ``[loads] height``), ``w = q Cd d`` per
+   metre of pole on its iced diameter, the wire share ``F_w = q Cd d_w L_w`` at the tip (White,
+   "Fluid Mechanics"; Hoerner, "Fluid-Dynamic Drag"; ice per plan/ice.py; from memory).
+2. The pole beyond its outer U-bolt B is a cantilever of length ``L`` (B to the tip) under the
+   wind, the wire pre-tension across it and its own, the ice's and the wire's weight,
+   superposed as ``plan/beam.py`` states (``plan/loads.py`` step 10; Gere, "Mechanics of
+   Materials"; Roark, from memory); the resultant moment ``M_B`` and shear ``F`` are taken
+   square to the plate (conservative). Pole stress ``sigma = M_B (D/2) / I + N / A`` against
+   the ultimate strength of a brittle composite (SF as rules/wind.py) or a metal's yield.
 3. The pole rests on two supports, the U-bolts B and A, ``s`` apart (statics of an
    overhanging beam): ``R_B = F + M_B / s`` at B and ``R_A = M_B / s`` (the other way) at A.
    Each U-bolt's two legs share its force: leg tension ``R / 2`` against the tensile stress
@@ -31,7 +35,7 @@ from dataclasses import dataclass
 
 from generators.plan.cutlist import tip_radius_mm
 from generators.plan.geometry import inside_polygon
-from generators.plan.loads import dynamic_pressure, pole_bore_mm, tube_second_moment
+from generators.plan.loads import pole_bore_mm
 from generators.plan.rules.base import COMMON, FAIL, PASS, SF_FAIL, SF_SPREADER, WARN, RuleResult, speed_text
 from generators.plan.rules.placement import PlacementRules
 
@@ -57,6 +61,9 @@ class PlateWind:
     solid_pole: bool = False
     sf_plate: float | None = None
     sf_legs: float | None = None
+    pressure_basis: str = "reference height: 10 m, open country"
+    spreader_allowable_mpa: float | None = None
+    brittle: bool = False
 
     @property
     def safety_factor(self) -> float | None:
@@ -75,7 +82,8 @@ class PlateWind:
                 [r(self.inner_force_n, 2), r(self.outer_force_n, 2)],
                 "plate_stress_mpa": r(self.plate_stress_mpa, 2),
                 "u_bolt_leg_tension_n": r(self.leg_tension_n, 2),
-                "safety_factor": r(self.safety_factor, 2)}
+                "safety_factor": r(self.safety_factor, 2),
+                "pressure_basis": self.pressure_basis}
 
 
 def _grade(sf: float, warn_below: float) -> str:
@@ -90,38 +98,51 @@ class PlateRules(PlacementRules):
         self.layout = layout
 
     def wind(self) -> PlateWind:
+        from generators.plan.ice import iced_diameter_mm
+        from generators.plan.loads import SpreaderLoad, design_pressure, pole_bending
+        from generators.standards.materials import get_material
+        from generators.standards.ubolts import U_BOLT_YIELD_MPA, stress_area_mm2
+
         cfg, lay = self.cfg, self.layout
         ld = cfg.loads
-        q = dynamic_pressure(ld.air_density, ld.wind_speed)
+        q, basis = design_pressure(cfg)
         R = tip_radius_mm(cfg)
         if R is None:
-            return PlateWind(ld.wind_speed, q, "no tip position: set spreaders.tip_radius or spreaders.tip_spacing")
+            return PlateWind(ld.wind_speed, q, "no tip position: set spreaders.tip_radius or spreaders.tip_spacing",
+                             pressure_basis=basis)
         D = cfg.spreaders.diameter
         r_b = max(math.hypot(*u.centre) for u in lay.for_spreader(1))
         L = (R - r_b) / 1000.0
         if L <= 0:
-            return PlateWind(ld.wind_speed, q, "the tips are on the plate: check spreaders.tip_radius")
-        w = q * ld.drag_coefficient * D / 1000.0
-        f_wire = q * ld.drag_coefficient * ld.wire_diameter / 1000.0 * ld.wire_length_per_spreader / 1000.0
-        m_b = w * L * L / 2 + f_wire * L
-        F = w * L + f_wire
+            return PlateWind(ld.wind_speed, q, "the tips are on the plate: check spreaders.tip_radius",
+                             pressure_basis=basis)
+        w = q * ld.drag_coefficient * iced_diameter_mm(D, ld.ice_thickness) / 1000.0
+        wire_d = iced_diameter_mm(ld.wire_diameter, ld.ice_thickness) if ld.wire_diameter > 0 else 0.0
+        f_wire = q * ld.drag_coefficient * wire_d / 1000.0 * ld.wire_length_per_spreader / 1000.0
+        pole = get_material(ld.spreader_material, key="loads.spreader_material")
+        across = SpreaderLoad(spreader=1, wind_azimuth_deg=0.0, exposed_length_m=L, pole_force_n=w * L,
+                              wire_force_n=f_wire, force_n=w * L + f_wire, moment_nm=w * L * L / 2 + f_wire * L,
+                              shear_n=w * L + f_wire)
+        # wind, wire pre-tension and weight (plan/loads.py step 10), the resultant taken square
+        # to the plate: the U-bolts and the plate carry it whichever way it points (conservative)
+        bend, axial, F = pole_bending(cfg, across, 0.0, pole)
+        m_b = bend.moment_nm
         s = lay.spacing_mm / 1000.0
         d_in = pole_bore_mm(cfg)
-        sigma = m_b * 1000.0 * (D / 2) / tube_second_moment(D, d_in or 0.0)
-        from generators.standards.materials import get_material
-
-        pole = get_material(ld.spreader_material, key="loads.spreader_material")
-        from generators.standards.ubolts import U_BOLT_YIELD_MPA, stress_area_mm2
-
+        area_mm2 = math.pi / 4 * (D * D - (d_in or 0.0) ** 2)
+        sigma = bend.stress_pa / 1e6 + max(axial, 0.0) / area_mm2
+        brittle = pole.material_class == "composite"
+        allowable = pole.tensile_mpa if brittle else pole.yield_mpa
         r_B, r_A = F + m_b / s, m_b / s
         plate = max(self._strip_stress(r_B), self._mast_stress(r_B, r_A))
         leg = r_B / 2 / stress_area_mm2(lay.for_spreader(1)[-1].size.thread)
         return PlateWind(ld.wind_speed, q, None, force_per_spreader_n=F, moment_at_hub_nm=m_b,
-                         spreader_stress_mpa=sigma, sf_spreader=pole.yield_mpa / sigma if sigma > 0 else None,
+                         spreader_stress_mpa=sigma, sf_spreader=allowable / sigma if sigma > 0 else None,
                          exposed_length_m=L, outer_force_n=r_B, inner_force_n=r_A, plate_stress_mpa=plate,
                          leg_tension_n=r_B / 2, solid_pole=d_in is None,
                          sf_plate=self.mat.yield_mpa / plate if plate > 0 else None,
-                         sf_legs=U_BOLT_YIELD_MPA / leg if leg > 0 else None)
+                         sf_legs=U_BOLT_YIELD_MPA / leg if leg > 0 else None,
+                         pressure_basis=basis, spreader_allowable_mpa=allowable, brittle=brittle)
 
     # ---- the plate sections ---------------------------------------------------------------
     def _strip_stress(self, r_b_n: float) -> float:
@@ -207,14 +228,26 @@ class PlateRules(PlacementRules):
         from generators.standards.ubolts import U_BOLT_YIELD_MPA, U_BOLT_YIELD_SOURCE, stress_area_mm2
 
         out = []
+        from generators.plan.rules.wind import BRITTLE_SOURCE, SF_BRITTLE, SF_BRITTLE_FAIL
+
         note = " (no spreaders.wall or inner_diameter: taken as a solid rod)" if w.solid_pole else ""
-        st = _grade(w.sf_spreader, SF_SPREADER)
-        out.append(RuleResult("wind-spreader", st, w.sf_spreader, SF_SPREADER, "SF",
+        fail_below, warn_below = (SF_BRITTLE_FAIL, SF_BRITTLE) if w.brittle else (SF_FAIL, SF_SPREADER)
+        sf = w.sf_spreader
+        st = FAIL if sf < fail_below else WARN if sf < warn_below else PASS
+        ld = self.cfg.loads
+        extra = "".join(", " + x for x, on in (("wire pre-tension", ld.wire_tension > 0), ("ice", ld.ice_thickness > 0))
+                        if on)
+        out.append(RuleResult("wind-spreader", st, sf, warn_below if st != FAIL else fail_below, "SF",
                               f"{w.spreader_stress_mpa:.0f} MPa in each pole at its outer U-bolt in"
-                              f" {speed_text(w.speed_m_s, self.cfg.units)} square to the plate{note}: safety factor"
-                              f" {w.sf_spreader:.2f}" + ("" if st == PASS else ": a stiffer pole or shorter spreaders"),
-                              "sigma = M c / I, M = w L^2/2 + F_wire L (Gere; Roark; from memory); q = rho V^2 / 2,"
-                              " Cd from the config (Hoerner; White; from memory)"))
+                              f" {speed_text(w.speed_m_s, self.cfg.units)} (wind, own weight{extra}, taken square to"
+                              f" the plate) against {w.spreader_allowable_mpa:.0f} MPa"
+                              f" ({'ultimate' if w.brittle else 'yield'}, {ld.spreader_material}){note}: safety factor"
+                              f" {sf:.2f}" + ("" if st == PASS else (f"; a brittle pole wants {SF_BRITTLE:g}" if w.brittle
+                                                                    else "") + ": a stiffer pole or shorter spreaders"),
+                              "sigma = M c / I + N / A, M from wind, pre-tension and weight superposed (plan/beam.py;"
+                              " Gere; Roark; from memory); q = rho V^2 / 2 or EN 1991-1-4 qp(z)"
+                              f" ({w.pressure_basis}); Cd from the config (Hoerner; White; from memory); "
+                              + (BRITTLE_SOURCE if w.brittle else f"yield, under {SF_FAIL:g} fails ({COMMON})")))
         sf = w.sf_plate
         st = _grade(sf, SF_PLATE)
         out.append(RuleResult("plate-bending", st, sf, SF_PLATE, "SF",

@@ -2,9 +2,9 @@
 
 from __future__ import annotations
 
-# Exact by definition: 1 lbf = 4.4482216152605 N (NIST SP 811), 1 ft = 0.3048 m.
-LBF = 4.4482216152605
-FT = 0.3048
+from generators.units import FT_M as FT
+from generators.units import LBF_N as LBF
+from generators.units import format_force
 
 ADVICE = ("Compare these with the mast maker's rating for a top load (force and its height), the"
           " rotator's turning and braking torque, and the clamp or thrust bearing's rating; add the"
@@ -14,7 +14,7 @@ ADVICE = ("Compare these with the mast maker's rating for a top load (force and 
 
 
 def _force(n: float, units: str) -> str:
-    return f"{n / LBF:.1f} lbf ({n:.0f} N)" if units == "in" else f"{n:.0f} N"
+    return format_force(n, units)
 
 
 def mast_rows(w: dict, units: str) -> list[list[str]]:

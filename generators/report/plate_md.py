@@ -60,22 +60,30 @@ def wind_section(md, cfg, checks) -> None:
     from generators.plan.rules import speed_text
 
     w = checks.wind
-    md.add(f"Gust {speed_text(w.speed_m_s, md.units)} square to the plate (the worst case for the plate: every"
-           " pole is loaded across at once), air density and drag coefficient as configured.", "")
+    from generators.units import format_force as F
+    from generators.units import format_moment as M
+    from generators.units import format_pressure as P
+    from generators.units import format_stress as S
+
+    u = md.units
+    md.add(f"Gust {speed_text(w.speed_m_s, u)} across every pole at once, with the poles' own weight, ice and"
+           " wire pre-tension as configured, the resultant taken square to the plate (the worst case for the"
+           " plate and its U-bolts).", "")
     if w.skipped:
         md.add(f"Not estimated: {w.skipped}.", "")
         return
     md.table(["figure", "value"], [
-        ["dynamic pressure q = 1/2 rho V^2", f"{w.pressure_pa:.0f} Pa"],
+        [f"design pressure ({w.pressure_basis})", P(w.pressure_pa, u)],
         ["pole beyond its outer U-bolt L", md.both(w.exposed_length_m * 1000)],
-        ["force on each pole F (pole + wire share)", f"{w.force_per_spreader_n:.1f} N"],
-        ["moment at the outer U-bolt M = w L^2/2 + F_wire L", f"{w.moment_at_hub_nm:.1f} N m"],
-        ["pole stress sigma = M c / I", f"{w.spreader_stress_mpa:.0f} MPa"],
-        ["U-bolt forces R_A = M/s, R_B = F + M/s", f"{w.inner_force_n:.0f} N, {w.outer_force_n:.0f} N"],
-        ["plate bending sigma = 6 M / (b t^2), worse section", f"{w.plate_stress_mpa:.0f} MPa"],
-        ["tension in each outer U-bolt leg R_B / 2", f"{w.leg_tension_n:.0f} N"],
+        ["force on each pole F (wind, weight, wire pull; resultant)", F(w.force_per_spreader_n, u, 1)],
+        ["moment at the outer U-bolt M (resultant)", M(w.moment_at_hub_nm, u)],
+        ["pole stress sigma = M c / I + N / A", f"{S(w.spreader_stress_mpa, u)} (allowable"
+                                                f" {S(w.spreader_allowable_mpa, u)})"],
+        ["U-bolt forces R_A = M/s, R_B = F + M/s", f"{F(w.inner_force_n, u)}, {F(w.outer_force_n, u)}"],
+        ["plate bending sigma = 6 M / (b t^2), worse section", S(w.plate_stress_mpa, u)],
+        ["tension in each outer U-bolt leg R_B / 2", F(w.leg_tension_n, u)],
     ])
-    md.add("Wind in the plate's plane bends the poles sideways against their U-bolts' friction and is not"
+    md.add("The friction of the U-bolts that keeps a pole from sliding along the plate is not"
            " estimated. The formulas are textbook statics (Gere, \"Mechanics of Materials\"; Roark, \"Formulas"
            " for Stress and Strain\"; from memory); the 45 deg load spread in the plate is common practice."
            " This is an estimate, not a structural certification.", "")

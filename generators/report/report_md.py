@@ -337,16 +337,24 @@ def wind_section(md: _Md, cfg, checks) -> None:
     if w.skipped:
         md.add(f"Not estimated: {w.skipped}.", "")
         return
+    from generators.units import format_force as F
+    from generators.units import format_moment as M
+    from generators.units import format_pressure as P
+    from generators.units import format_stress as S
+
+    u = md.units
     rows = [
-        [f"design pressure ({w.pressure_basis})", f"{w.pressure_pa:.0f} Pa"],
+        [f"design pressure ({w.pressure_basis})", P(w.pressure_pa, u)],
         ["exposed spreader length L (socket mouth to tip)", f"{md.both(w.exposed_length_m * 1000)}"],
-        ["force on the worst spreader (pole + wire share)", f"{w.force_per_spreader_n:.1f} N"],
-        ["bending moment at the socket mouth (q Cd d L^2/2 + F_wire L)", f"{w.moment_at_hub_nm:.1f} N m"],
-        ["moment at the socket mouth with wire pull, weight and ice", f"{w.root_moment_nm:.1f} N m"],
-        ["spreader stress sigma = M c / I (+ axial pull)", f"{w.spreader_stress_mpa:.0f} MPa (allowable {w.spreader_allowable_mpa:.0f} MPa)"],
-        ["peak bearing on the socket wall", f"{w.bearing_pressure_mpa:.1f} MPa (allowable {w.hub_bearing_allowable_mpa:g} MPa)"],
-        ["axial pull the set screws hold", f"{w.set_screw_pull_n:.0f} N"
-         + (f" (they hold about {w.set_screw_capacity_n:.0f} N)" if w.set_screw_capacity_n else "")],
+        ["force on the worst spreader (pole + wire share)", F(w.force_per_spreader_n, u, 1)],
+        ["bending moment at the socket mouth (q Cd d L^2/2 + F_wire L)", M(w.moment_at_hub_nm, u)],
+        ["moment at the socket mouth with wire pull, weight and ice", M(w.root_moment_nm, u)],
+        ["spreader stress sigma = M c / I (+ axial pull)",
+         f"{S(w.spreader_stress_mpa, u)} (allowable {S(w.spreader_allowable_mpa, u)})"],
+        ["peak bearing on the socket wall",
+         f"{S(w.bearing_pressure_mpa, u, 1)} (allowable {S(w.hub_bearing_allowable_mpa, u, 1)})"],
+        ["axial pull the set screws hold", F(w.set_screw_pull_n, u)
+         + (f" (they hold about {F(w.set_screw_capacity_n, u)})" if w.set_screw_capacity_n else "")],
         ["lowest safety factor", f"{w.safety_factor:.2f}" if w.safety_factor is not None else "-"],
     ]
     md.table(["figure", "value"], rows)
@@ -357,7 +365,7 @@ def wind_section(md: _Md, cfg, checks) -> None:
     md.add(ADVICE, "")
     md.add(f"Worst case: wind across spreader {w.worst_spreader} (from azimuth sweep). The pole is taken"
            " at its hub-end diameter all the way out and the wire broadside to the wind, both on the safe"
-           f" side; wire pre-tension ({ld.wire_tension:g} N at {ld.wire_angle:g} deg), radial ice"
+           f" side; wire pre-tension ({F(ld.wire_tension, u)} at {ld.wire_angle:g} deg), radial ice"
            f" ({md.L(ld.ice_thickness)}) and the pole's own weight are included (plan/beam.py). Dynamic pressure,"
            " cylinder drag (Cd 1.2, Hoerner \"Fluid-Dynamic Drag\"; White \"Fluid Mechanics\") and the tube"
            " section (I = pi (D^4 - d^4)/64, Roark \"Formulas for Stress and Strain\") are textbook"

@@ -35,7 +35,7 @@ def test_json_keys_and_exit_0_on_the_demos(path):
 def test_default_config_is_the_metric_demo_and_prints_a_table():
     p = hubwright("check")
     assert p.returncode == 0, p.stderr
-    assert "hex-portable-50" in p.stdout and "socket-wall" in p.stdout and "dynamic pressure" in p.stdout
+    assert "hex-portable-50" in p.stdout and "socket-wall" in p.stdout and "design pressure" in p.stdout
     assert "not a structural certification" in p.stdout
 
 

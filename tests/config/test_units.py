@@ -94,3 +94,38 @@ def test_factors_agree_with_pint(text, kind, target):
     ours = {"length": length_mm, "angle": angle_deg, "speed": speed_m_s}[kind](text, "k")
     ref = reg.Quantity(float(number), _ALIASES[unit]).to(target).magnitude
     assert ours == pytest.approx(ref, rel=1e-12)
+
+
+def test_load_units_in_an_inch_config_follow_nist_sp_811():
+    """1 lbf = 4.4482216152605 N, 1 ft-lbf = 1.3558179 N m, 1 psf = 47.880259 Pa,
+    1 ksi = 6.8947573 MPa (NIST SP 811, appendix B.8)."""
+    from generators.units import format_force, format_moment, format_pressure, format_stress
+
+    assert format_force(4.4482216152605 * 100, "in") == "100.0 lbf (445 N)"
+    assert format_force(445.0, "mm") == "445 N"
+    assert format_moment(1.3558179 * 50, "in") == "50.0 ft-lbf (67.8 N m)"
+    assert format_pressure(47.880259 * 20, "in") == "20.0 psf (958 Pa)"
+    assert format_stress(6.8947573 * 30, "in") == "30.0 ksi (207 MPa)"
+    assert format_stress(207.0, "mm") == "207 MPa"
+
+
+@pytest.mark.parametrize("text, newtons", [("50 N", 50.0), ("0.2 kN", 200.0), ("10 lbf", 44.482216152605), (25, 25.0)])
+def test_wire_tension_takes_a_force_with_its_unit(text, newtons):
+    """lbf by NIST SP 811; a bare number is N."""
+    from generators.config.load import parse_config
+
+    from tests.reducers.helpers import BASE
+
+    data = {**BASE, "loads": {"wire_tension": text}}
+    assert parse_config(data).loads.wire_tension == pytest.approx(newtons)
+
+
+def test_a_force_in_kilograms_is_refused_naming_the_key():
+    from generators.config.load import parse_config
+    from generators.errors import UserError
+
+    from tests.reducers.helpers import BASE
+
+    with pytest.raises(UserError) as e:
+        parse_config({**BASE, "loads": {"wire_tension": "5 kg"}})
+    assert e.value.key == "loads.wire_tension" and "lbf" in str(e.value)
