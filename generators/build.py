@@ -158,6 +158,12 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
     except KernelError as exc:
         saved = save_failed_config(cfg, target, config_path)
         raise KernelError(exc.key, exc.problem, f"a bug: please report it with {saved}") from None
+    from generators.output import user_files
+
+    kept = user_files(target)
+    if kept:
+        shown = ", ".join(kept[:5]) + (f" and {len(kept) - 5} more" if len(kept) > 5 else "")
+        ctx.summary.append(f"  kept   {len(kept)} file(s) of yours in {target}/ (not written by hubwright): {shown}")
     return BuildResult(name=cfg.name, folder=target, manifest=manifest, summary=ctx.summary)
 
 

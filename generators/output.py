@@ -5,6 +5,11 @@ place when every file is written. The target is replaced only when it carries th
 marker file a build writes last (:data:`MARKER`); any other folder or file of that
 name is refused and left alone.
 
+Files a builder put into an output folder (notes, photos) are not lost on a rebuild: the
+marker lists every file the build wrote, and any other file in the old folder is moved into
+the new one before the swap (a file whose name the new build also writes is refused, and
+nothing is touched).
+
 Each temporary folder has a unique id and is held with ``flock`` by the build that
 owns it; a build clears only leftovers of exactly its own target name whose lock is
 free (a killed build's). The few steps that look at or rename folders run under a
@@ -34,10 +39,63 @@ OLD_PREFIX = ".hubwright-old+"
 _LEFTOVER = re.compile(r"^\.hubwright-(?:tmp|old)\+(?P<name>.+)\+(?P<uid>[0-9a-f]{12})$")
 
 
-def marker_text(name: str) -> str:
-    """The marker's content: no time stamp, so rebuilds stay byte-identical."""
-    return json.dumps({"generator": GENERATOR, "version": __version__, "config_name": name},
-                      indent=2, sort_keys=True) + "\n"
+def marker_text(name: str, files: list[str] | None = None) -> str:
+    """The marker's content: no time stamp, so rebuilds stay byte-identical; ``files`` are
+    the paths the build wrote (relative, sorted)."""
+    data = {"generator": GENERATOR, "version": __version__, "config_name": name}
+    if files is not None:
+        data["files"] = sorted(files)
+    return json.dumps(data, indent=2, sort_keys=True) + "\n"
+
+
+def _all_files(folder: Path) -> list[str]:
+    """Every file and link under ``folder`` (links not followed), relative, but the marker."""
+    out = []
+    for root, dirs, names in os.walk(folder):
+        base = Path(root)
+        for n in names + [d for d in dirs if (base / d).is_symlink()]:
+            rel = (base / n).relative_to(folder).as_posix()
+            if rel != MARKER:
+                out.append(rel)
+    return sorted(out)
+
+
+def _written_before(target: Path) -> set[str] | None:
+    """What the build in ``target`` wrote: its marker's list, else (older builds) the
+    manifest's files and the build's own records; None when neither says."""
+    try:
+        data = json.loads((target / MARKER).read_text(encoding="utf-8"))
+        if isinstance(data.get("files"), list):
+            return {str(x) for x in data["files"]}
+        files = json.loads((target / "manifest.json").read_text(encoding="utf-8")).get("files")
+    except (OSError, ValueError, AttributeError):
+        return None
+    if not isinstance(files, dict):
+        return None
+    return set(files) | {"manifest.json", "changes.json"}
+
+
+def user_files(target: Path) -> list[str]:
+    """Files in an owned output folder that hubwright did not write there."""
+    if not target.is_dir() or target.is_symlink():
+        return []
+    wrote = _written_before(target)
+    if wrote is None:
+        return []
+    return [f for f in _all_files(target) if f not in wrote]
+
+
+def _carry_over(target: Path, tmp: Path) -> list[str]:
+    """Move the builder's own files from the old output into the new one (before the swap)."""
+    keep = user_files(target)
+    clash = [f for f in keep if (tmp / f).exists() or (tmp / f).is_symlink()]
+    if clash:
+        raise UserError("--out", f"{target / clash[0]} was not written by hubwright and the new build writes a"
+                        " file of that name; nothing was touched", "move or rename it, then build again")
+    for f in keep:
+        (tmp / f).parent.mkdir(parents=True, exist_ok=True)
+        os.replace(target / f, tmp / f)
+    return keep
 
 
 def owned(folder: Path) -> bool:
@@ -119,6 +177,7 @@ def _swap(tmp: Path, target: Path) -> None:
     with signals.held(), _parent_lock(parent):
         _refuse_foreign(target)  # someone may have put a folder there meanwhile
         if target.exists():
+            kept = _carry_over(target, tmp)
             old, old_fd = _new_folder(parent, OLD_PREFIX, name)
             try:
                 os.replace(target, old / name)
@@ -126,6 +185,9 @@ def _swap(tmp: Path, target: Path) -> None:
             except OSError:
                 if not target.exists() and (old / name).exists():
                     os.replace(old / name, target)  # put the previous output back
+                for f in kept:  # and the builder's files into it
+                    if (tmp / f).exists() and not (target / f).exists():
+                        os.replace(tmp / f, target / f)
                 raise
             finally:
                 os.close(old_fd)
@@ -155,7 +217,8 @@ def atomic_folder(target: Path) -> Iterator[Path]:
         with signals.on_interrupt(lambda: shutil.rmtree(tmp, ignore_errors=True)):
             try:
                 yield tmp
-                (tmp / MARKER).write_text(marker_text(name), encoding="utf-8")  # last: the folder is whole
+                files = _all_files(tmp)
+                (tmp / MARKER).write_text(marker_text(name, files), encoding="utf-8")  # last: the folder is whole
                 _swap(tmp, target)
             except OSError as exc:
                 raise UserError("--out", f"cannot write {target} ({exc.strerror})") from None

@@ -118,3 +118,49 @@ def test_name_cannot_escape_the_output_folder(tmp_path):
     r = run_build(cfg, "--out", tmp_path / "out")
     assert r.returncode == 2 and r.stderr.startswith("error: name:")
     assert not (tmp_path / "out").exists() and not (tmp_path / "etc").exists()
+
+
+def test_a_rebuild_keeps_the_builders_own_files(tmp_path):
+    """Notes and photos put into an output folder survive a rebuild; a file whose name the
+    build itself writes is refused with nothing touched."""
+    r = run_build(DEMO, "--out", tmp_path)
+    assert r.returncode == 0, r.stderr
+    folder = tmp_path / NAME
+    (folder / "my-notes.txt").write_text("drilled S1 too deep, re-do")
+    (folder / "photos").mkdir()
+    (folder / "photos" / "hub.jpg").write_bytes(b"\xff\xd8 not really a jpeg")
+    r = run_build(DEMO, "--out", tmp_path)
+    assert r.returncode == 0, r.stderr
+    assert (folder / "my-notes.txt").read_text() == "drilled S1 too deep, re-do"
+    assert (folder / "photos" / "hub.jpg").read_bytes().startswith(b"\xff\xd8")
+    assert "kept   2 file(s) of yours" in r.stdout
+    assert not [p for p in tmp_path.iterdir() if p.name.startswith(".hubwright-")]
+
+
+def test_a_rebuild_does_not_carry_stale_outputs(tmp_path):
+    """A file the previous build wrote is the build's, not the builder's: it is not kept."""
+    r = run_build(DEMO, "--out", tmp_path)
+    assert r.returncode == 0, r.stderr
+    marker = json.loads((tmp_path / NAME / ".hubwright-build.json").read_text())
+    assert "hub.step" in marker["files"] and "manifest.json" in marker["files"]
+    r = run_build(DEMO, "--out", tmp_path)
+    assert "kept" not in r.stdout
+    assert files_match_manifest(tmp_path / NAME)
+
+
+def test_a_builders_file_named_like_a_new_output_is_refused(tmp_path):
+    from generators.errors import UserError
+    from generators.output import MARKER, atomic_folder, marker_text
+
+    target = tmp_path / "part"
+    target.mkdir()
+    (target / "report.md").write_text("old")
+    (target / MARKER).write_text(marker_text("part", ["report.md"]))
+    (target / "jig.dxf").write_text("the builder's own sketch")
+    with pytest.raises(UserError) as e:
+        with atomic_folder(target) as tmp:
+            (tmp / "report.md").write_text("new")
+            (tmp / "jig.dxf").write_text("a new output")
+    assert e.value.key == "--out" and "jig.dxf" in str(e.value)
+    assert (target / "jig.dxf").read_text() == "the builder's own sketch"
+    assert (target / "report.md").read_text() == "old"
