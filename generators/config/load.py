@@ -115,6 +115,13 @@ def _user_error(exc: ValidationError, units: str) -> UserError:
         field, msg = msg.split(": ", 1)
         loc = loc + (field,)
     accepted = None
+    value = err.get("input")
+    if isinstance(value, float) and value != value:  # NaN compares unequal to itself
+        return UserError(_key(loc), "nan is not a number", "a finite number")
+    if isinstance(value, float) and value in (float("inf"), float("-inf")):
+        return UserError(_key(loc), f"{value} is not a finite number", "a finite number")
+    if kind in ("tuple_type", "list_type"):
+        return UserError(_key(loc), f"{value!r} is not a list", "a TOML list, e.g. [45, 135]")
     if kind == "literal_error":
         accepted = msg.replace("Input should be ", "")
         msg = f"{err.get('input')!r} is not accepted"

@@ -185,6 +185,15 @@ class MastClamp(Section):
                                  " (give as many azimuths as clamp screws, or leave count out)")
         return data
 
+    @model_validator(mode="after")
+    def _azimuths_apart(self):
+        if self.azimuths:
+            seen = sorted(a % 360 for a in self.azimuths)
+            for a, b in zip(seen, seen[1:] + [seen[0] + 360]):
+                if len(seen) > 1 and abs(b - a) < 1e-6:
+                    raise ValueError(f"azimuths: {a:g} deg is given twice (one clamp screw per azimuth)")
+        return self
+
 
 class ExtraHole(Section):
     id: Annotated[str, Field(min_length=1, max_length=24, pattern=r"^[A-Za-z0-9_.-]+$")]

@@ -129,3 +129,25 @@ def test_a_force_in_kilograms_is_refused_naming_the_key():
     with pytest.raises(UserError) as e:
         parse_config({**BASE, "loads": {"wire_tension": "5 kg"}})
     assert e.value.key == "loads.wire_tension" and "lbf" in str(e.value)
+
+
+@pytest.mark.parametrize("section, text, problem", [
+    ("mast_clamp", 'azimuths = "45, 135"', "is not a list"),
+    ("mast_clamp", "torque = nan", "nan is not a number"),
+    ("mast_clamp", "azimuths = [45, 405]", "45 deg is given twice"),
+    ("loads", "wire_tension = inf", "not a finite number"),
+])
+def test_malformed_values_get_one_line_naming_the_key(tmp_path, section, text, problem):
+    """TOML reads nan and inf as floats (TOML 1.0 spec); they are refused as numbers, not as ranges."""
+    import tomllib
+
+    from generators.config.load import parse_config
+    from generators.errors import UserError
+
+    from tests.reducers.helpers import BASE
+
+    data = {**BASE, **tomllib.loads(f"[{section}]\nthread = \"M5\"\n{text}\n" if section == "mast_clamp"
+                                    else f"[{section}]\n{text}\n")}
+    with pytest.raises(UserError) as e:
+        parse_config(data)
+    assert e.value.key == f"{section}.{text.split(' =')[0]}" and problem in str(e.value)
