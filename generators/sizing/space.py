@@ -111,9 +111,11 @@ def _get(obj, key: str):
 
 
 def default_keys(cfg: Config) -> list[str]:
-    """hub.thickness, the hub's width, and the socket depth when it is a length."""
-    keys = ["hub.thickness", "hub.across_flats" if cfg.hub.style == "block" else "hub.diameter"]
-    if isinstance(cfg.spreaders.socket_depth, float):
+    """hub.thickness, the hub's width, and the socket depth when it is a length (a plate
+    has no sockets: its poles sit under U-bolts)."""
+    flats = cfg.hub.style == "block" or (cfg.hub.style == "plate" and cfg.hub.across_flats is not None)
+    keys = ["hub.thickness", "hub.across_flats" if flats else "hub.diameter"]
+    if cfg.hub.style != "plate" and isinstance(cfg.spreaders.socket_depth, float):
         keys.append("spreaders.socket_depth")
     return keys
 

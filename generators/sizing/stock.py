@@ -42,7 +42,7 @@ def rod_diameters_mm(units: str) -> tuple[float, ...]:
 
 def stock_series(key: str, style: str, units: str) -> tuple[float, ...] | None:
     """The stock sizes a varied key must take, or None when it is sawn to any size."""
-    if key == "hub.thickness" and style == "block":
+    if key == "hub.thickness" and style in ("block", "plate"):
         return plate_thicknesses_mm(units)
     if key == "hub.diameter" and style == "puck":
         return rod_diameters_mm(units)

@@ -17,8 +17,8 @@ from generators.design import design
 from generators.errors import UserError
 
 ROOT = Path(__file__).resolve().parents[2]
-# the block and puck demos (sizing a U-bolt plate is not built yet)
-DEMOS = sorted(p.name for p in (ROOT / "configs").glob("*.toml") if p.name != "four-spreader-plate.toml")
+# every demo: block, puck, printed and the U-bolt plate
+DEMOS = sorted(p.name for p in (ROOT / "configs").glob("*.toml") if not p.name.endswith(".sized.toml"))
 MM_PER_IN = 25.4
 
 
