@@ -75,8 +75,13 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
     was = "refused" if orig_mass is None else f"{orig_mass:.0f} g"
     lines += [f"  material {best.material}, about {best.mass_g:.0f} g (the config: {was}),"
               f" lowest safety factor {sf}", f"  wrote {target}"]
-    if warns:
-        lines.append(f"  warns: {', '.join(warns)} (below the recommended figure; --strict sizes to it)")
+    fixed = [w for w in warns if w in result.strict_ignored]
+    liftable = [w for w in warns if w not in result.strict_ignored]
+    if liftable:
+        lines.append(f"  warns: {', '.join(liftable)} (below the recommended figure; --strict sizes to it)")
+    if fixed:
+        lines.append(f"  warns whatever the hub's size in this space: {', '.join(fixed)} (--strict leaves"
+                     " them: the fix is outside the hub, see check)")
     lines += ["", "what binds (one step smaller):"]
     for row in rec["binding"]:
         d = next(x for x in dims if x.key == row["key"])
@@ -87,7 +92,8 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
         if row["refusal"]:
             lines.append(at + f"refused: {row['refusal']}")
         for r in row["rules"]:
-            lines.append(at + f"{r['id']} fails ({figure(r['below'], r['unit'], units)} against"
+            verb = "warns" if r.get("status") == "warn" else "fails"
+            lines.append(at + f"{r['id']} {verb} ({figure(r['below'], r['unit'], units)} against"
                               f" {figure(r['limit'], r['unit'], units)}; now {figure(r['now'], r['unit'], units)})")
     lines += ["", "mass per step:"]
     rows = [["dimension", "value", "one step up", "one step down"]]
@@ -180,7 +186,8 @@ def run(args: argparse.Namespace) -> int:
         out = {"file": str(target), "objective": result.objective, "material": best.material,
                "design": rec["design"], "mass_g": rec["mass_g"],
                "lowest_safety_factor": rec["lowest_safety_factor"], "binding_rules": rec["binding_rules"],
-               "binding": rec["binding"], "candidates": records}
+               "binding": rec["binding"], "candidates": records,
+               "strict_left_warnings": list(result.strict_ignored)}
         json.dump(out, sys.stdout, indent=2)
         sys.stdout.write("\n")
     else:

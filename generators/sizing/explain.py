@@ -28,7 +28,7 @@ def binding(result: SizingResult, o: Outcome) -> list[dict]:
         for rid in below.failed:
             now, there = _rule(o, rid), _rule(below, rid)
             row["rules"].append({"id": rid, "unit": there["unit"], "now": now["value"] if now else None,
-                                 "below": there["value"], "limit": there["limit"]})
+                                 "below": there["value"], "limit": there["limit"], "status": there["status"]})
         out.append(row)
     return out
 

@@ -60,6 +60,7 @@ class Space:
         self.raw, self.units, self.dims = raw, units, dims
         self.material, self.objective, self.strict = material, objective, strict
         self.seen: dict[tuple[int, ...], Outcome] = {}
+        self.ignored: frozenset[str] = frozenset()  # warns --strict cannot lift (see hub_independent)
 
     def data(self, point: tuple[int, ...]) -> dict:
         extra = {"hub.material": self.material} if self.material else {}
@@ -85,12 +86,31 @@ class Space:
         except UserError as exc:
             return Outcome(mat, point, values, False, refusal=exc.line())
         checks = d.checks_json
-        bad = {"fail", "warn"} if self.strict else {"fail"}
-        failed = tuple(r["id"] for r in checks["rules"] if r["status"] in bad)
+        failed = tuple(r["id"] for r in checks["rules"] if r["status"] == "fail"
+                       or (self.strict and r["status"] == "warn" and r["id"] not in self.ignored))
         mass = d.checks.mass_estimate_g
         obj = blank_volume_mm3(d.plan.body) / 1000.0 if self.objective == "stock" else mass
         return Outcome(d.plan.material, point, values, not failed, failed, None, mass, obj,
                        lowest_safety_factor(checks), d)
+
+    def hub_independent(self, start: tuple[int, ...]) -> frozenset[str]:
+        """Rules that warn at the start and still warn with every dimension doubled: the
+        hub's size does not lift them (a pole's own strength, friction against a gust), so
+        ``--strict`` leaves them as warnings instead of finding no design."""
+        from generators.design import design
+
+        def warns(point) -> set[str] | None:
+            try:
+                d = design(parse_config(self.data(point)))
+            except UserError:
+                return None
+            return {r["id"] for r in d.checks_json["rules"] if r["status"] == "warn"}
+
+        big = tuple(self._grown(k, d, 2.0) for k, d in zip(start, self.dims))
+        here, there = warns(start), warns(big)
+        if here is None or there is None:
+            return frozenset()
+        return frozenset(here & there)
 
     def step(self, point: tuple[int, ...], i: int, by: int) -> tuple[int, ...]:
         p = list(point)
@@ -156,6 +176,7 @@ class SizingResult:
     spaces: dict = field(default_factory=dict)  # material -> Space
     unmet: tuple[str, ...] = ()  # rules failing at every buildable attempt (nothing passed)
     attempt: Outcome | None = None  # the best attempt when nothing passed
+    strict_ignored: tuple[str, ...] = ()  # warns no hub size in the space lifts (--strict)
 
     def space(self, outcome: Outcome) -> Space:
         return self.spaces[outcome.material]
@@ -174,6 +195,9 @@ def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str
     for mat in materials or [None]:
         space = Space(raw, units, dims, mat, objective, strict)
         start = tuple(d.start for d in dims)
+        if strict:
+            space.ignored = space.hub_independent(start)
+            result.strict_ignored = tuple(sorted(set(result.strict_ignored) | space.ignored))
         if not space(start).ok:
             start = space.grow(start)
         if start is None:
