@@ -52,18 +52,22 @@ _TORQUE = {"n m": 1.0, "nm": 1.0, "n.m": 1.0, "in-lbf": 0.0254 * 4.4482216152605
            "ft lbf": 0.3048 * 4.4482216152605}
 
 
-def _torque(value, info):
-    """A torque in N m: a bare number is N m; a string may say "N m", "in-lbf" or "ft-lbf"."""
+def _with_unit(value, info, table: dict[str, float], what: str, accepted: str) -> float:
+    """A bare number (already in SI) or "<number> <unit>" with the unit in ``table``."""
     if isinstance(value, (int, float)) and not isinstance(value, bool):
         return float(value)
     import re
 
     m = re.fullmatch(r"\s*([0-9]*\.?[0-9]+)\s*([A-Za-z .-]+)\s*", str(value))
     unit = m and m[2].strip().lower()
-    if not m or unit not in _TORQUE:
-        raise UserError(info.field_name or "torque", f"{value!r} is not a torque",
-                        'a number in N m, or "3 N m", "25 in-lbf", "2 ft-lbf"')
-    return float(m[1]) * _TORQUE[unit]
+    if not m or unit not in table:
+        raise UserError(info.field_name or what, f"{value!r} is not a {what}", accepted)
+    return float(m[1]) * table[unit]
+
+
+def _torque(value, info):
+    """A torque in N m: a bare number is N m; a string may say "N m", "in-lbf" or "ft-lbf"."""
+    return _with_unit(value, info, _TORQUE, "torque", 'a number in N m, or "3 N m", "25 in-lbf", "2 ft-lbf"')
 
 
 # Force units, exact by definition: 1 lbf = 4.4482216152605 N (NIST SP 811).
@@ -72,16 +76,7 @@ _FORCE = {"n": 1.0, "kn": 1000.0, "lbf": 4.4482216152605, "lb": 4.4482216152605}
 
 def _force(value, info):
     """A force in N: a bare number is N; a string may say "N", "kN" or "lbf"."""
-    if isinstance(value, (int, float)) and not isinstance(value, bool):
-        return float(value)
-    import re
-
-    m = re.fullmatch(r"\s*([0-9]*\.?[0-9]+)\s*([A-Za-z]+)\s*", str(value))
-    unit = m and m[2].strip().lower()
-    if not m or unit not in _FORCE:
-        raise UserError(info.field_name or "force", f"{value!r} is not a force",
-                        'a number in N, or "50 N", "0.2 kN", "11 lbf"')
-    return float(m[1]) * _FORCE[unit]
+    return _with_unit(value, info, _FORCE, "force", 'a number in N, or "50 N", "0.2 kN", "11 lbf"')
 
 
 Length = Annotated[float, BeforeValidator(_wrap(_length, "length"))]

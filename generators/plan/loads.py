@@ -129,16 +129,22 @@ class WindResult:
 
     def as_json(self) -> dict:
         """The keys of ``check --json``'s ``wind`` section."""
-        r = lambda x, n=3: None if x is None else round(x, n)  # noqa: E731
-        return {"speed_m_s": r(self.speed_m_s), "pressure_pa": r(self.pressure_pa, 1),
-                "force_per_spreader_n": r(self.force_per_spreader_n, 2),
-                "moment_at_hub_nm": r(self.moment_at_hub_nm, 2),
-                "spreader_stress_mpa": r(self.spreader_stress_mpa, 2),
-                "bearing_pressure_mpa": r(self.bearing_pressure_mpa, 3),
-                "set_screw_pull_n": r(self.set_screw_pull_n, 2),
-                "safety_factor": r(self.safety_factor, 2),
-                "pressure_basis": self.pressure_basis,
-                **{k: (r(getattr(self.mast, k), 4) if self.mast else None) for k in MAST_KEYS}}
+        return {**wind_json(self), "bearing_pressure_mpa": rounded(self.bearing_pressure_mpa, 3),
+                "set_screw_pull_n": rounded(self.set_screw_pull_n, 2),
+                **{k: (rounded(getattr(self.mast, k), 4) if self.mast else None) for k in MAST_KEYS}}
+
+
+def rounded(x: float | None, n: int = 3) -> float | None:
+    return None if x is None else round(x, n)
+
+
+def wind_json(w) -> dict:
+    """The ``wind`` keys every hub style gives (a block's ``WindResult``, a plate's ``PlateWind``)."""
+    return {"speed_m_s": rounded(w.speed_m_s), "pressure_pa": rounded(w.pressure_pa, 1),
+            "force_per_spreader_n": rounded(w.force_per_spreader_n, 2),
+            "moment_at_hub_nm": rounded(w.moment_at_hub_nm, 2),
+            "spreader_stress_mpa": rounded(w.spreader_stress_mpa, 2),
+            "safety_factor": rounded(w.safety_factor, 2), "pressure_basis": w.pressure_basis}
 
 
 def dynamic_pressure(rho: float, v: float) -> float:

@@ -45,7 +45,7 @@ class MastLoads:
 def hub_side_area_m2(plan) -> float:
     """The hub seen from the side: its widest plan width times its thickness."""
     b = plan.body
-    width = b.diameter_mm if b.style == "puck" else b.across_flats_mm / math.cos(math.pi / (b.sides or 6))
+    width = 2 * b.corner_radius_mm  # across the corners: the widest the wind can see
     return width * b.thickness_mm * 1e-6
 
 
@@ -74,7 +74,9 @@ def mast_loads(cfg, plan, q: float, lengths_m: list[float], directions: list[flo
     torque = GUST_FRACTION * best_force * GUST_ECCENTRICITY * 2.0 * tip_radius_mm / 1000.0
     bore = sp.inner_diameter if sp.inner_diameter is not None else (
         max(sp.diameter - 2.0 * sp.wall, 0.0) if sp.wall is not None else 0.0)
-    socket = {s.id: plan.hole(s.socket_hole).depth_mm / 1000.0 for s in plan.spreaders}
+    # the pole's length inside the hub: its socket, or on a plate from the stop line to the edge
+    socket = {s.id: (plan.hole(s.socket_hole).depth_mm if s.socket_hole else math.dist(s.mouth_mm, s.bottom_mm))
+              / 1000.0 for s in plan.spreaders}
     pole_w = sum(pole_mat.density_g_cm3 * 1000.0 * beam.G * beam.tube_area_m2(sp.diameter, bore)
                  * (L + socket[s.id]) for s, L in zip(plan.spreaders, lengths_m))
     wire_w = n * COPPER_DENSITY * beam.G * math.pi / 4 * (ld.wire_diameter / 1000.0) ** 2 * wire_len

@@ -64,6 +64,7 @@ class PlateWind:
     pressure_basis: str = "reference height: 10 m, open country"
     spreader_allowable_mpa: float | None = None
     brittle: bool = False
+    mast: object | None = None  # mast_loads.MastLoads
 
     @property
     def safety_factor(self) -> float | None:
@@ -72,18 +73,15 @@ class PlateWind:
         return min(sfs) if sfs else None
 
     def as_json(self) -> dict:
-        r = lambda x, n=3: None if x is None else round(x, n)  # noqa: E731
-        return {"speed_m_s": r(self.speed_m_s), "pressure_pa": r(self.pressure_pa, 1),
-                "force_per_spreader_n": r(self.force_per_spreader_n, 2),
-                "moment_at_hub_nm": r(self.moment_at_hub_nm, 2),
-                "spreader_stress_mpa": r(self.spreader_stress_mpa, 2),
-                "bearing_pressure_mpa": None, "set_screw_pull_n": None,
+        from generators.plan.loads import MAST_KEYS, wind_json
+        from generators.plan.loads import rounded as r
+
+        return {**wind_json(self), "bearing_pressure_mpa": None, "set_screw_pull_n": None,
                 "u_bolt_forces_n": None if self.outer_force_n is None else
                 [r(self.inner_force_n, 2), r(self.outer_force_n, 2)],
                 "plate_stress_mpa": r(self.plate_stress_mpa, 2),
                 "u_bolt_leg_tension_n": r(self.leg_tension_n, 2),
-                "safety_factor": r(self.safety_factor, 2),
-                "pressure_basis": self.pressure_basis}
+                **{k: (r(getattr(self.mast, k), 4) if self.mast else None) for k in MAST_KEYS}}
 
 
 def _grade(sf: float, warn_below: float) -> str:
@@ -133,6 +131,11 @@ class PlateRules(PlacementRules):
         sigma = bend.stress_pa / 1e6 + max(axial, 0.0) / area_mm2
         brittle = pole.material_class == "composite"
         allowable = pole.tensile_mpa if brittle else pole.yield_mpa
+        from generators.plan.loads import _directions
+        from generators.plan.mast_loads import mast_loads
+
+        lengths = [(R - math.hypot(sp.mouth_mm[0], sp.mouth_mm[1])) / 1000.0 for sp in self.plan.spreaders]
+        mast = mast_loads(cfg, self.plan, q, lengths, _directions(), self.mass_estimate_g(), R, pole, max(lengths))
         r_B, r_A = F + m_b / s, m_b / s
         plate = max(self._strip_stress(r_B), self._mast_stress(r_B, r_A))
         leg = r_B / 2 / stress_area_mm2(lay.for_spreader(1)[-1].size.thread)
@@ -142,7 +145,7 @@ class PlateRules(PlacementRules):
                          leg_tension_n=r_B / 2, solid_pole=d_in is None,
                          sf_plate=self.mat.yield_mpa / plate if plate > 0 else None,
                          sf_legs=U_BOLT_YIELD_MPA / leg if leg > 0 else None,
-                         pressure_basis=basis, spreader_allowable_mpa=allowable, brittle=brittle)
+                         pressure_basis=basis, spreader_allowable_mpa=allowable, brittle=brittle, mast=mast)
 
     # ---- the plate sections ---------------------------------------------------------------
     def _strip_stress(self, r_b_n: float) -> float:

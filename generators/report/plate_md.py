@@ -83,6 +83,13 @@ def wind_section(md, cfg, checks) -> None:
         ["plate bending sigma = 6 M / (b t^2), worse section", S(w.plate_stress_mpa, u)],
         ["tension in each outer U-bolt leg R_B / 2", F(w.leg_tension_n, u)],
     ])
+    from generators.report.mast_figures import ADVICE, mast_rows
+
+    rows = mast_rows(w.as_json(), u)
+    if rows:
+        md.add("What the antenna puts on the mast:", "")
+        md.table(["figure", "value"], rows)
+        md.add(ADVICE, "")
     md.add("The friction of the U-bolts that keeps a pole from sliding along the plate is not"
            " estimated. The formulas are textbook statics (Gere, \"Mechanics of Materials\"; Roark, \"Formulas"
            " for Stress and Strain\"; from memory); the 45 deg load spread in the plate is common practice."

@@ -218,3 +218,22 @@ def test_plate_pole_is_held_to_the_brittle_margin():
     rule = next(r for r in d.checks.rules if r.id == "wind-spreader")
     assert d.checks.wind.brittle and rule.value == pytest.approx(d.checks.wind.sf_spreader)
     assert rule.status == ("pass" if rule.value >= 2.5 else "warn" if rule.value >= 1.5 else "fail")
+
+
+def test_plate_gives_what_the_antenna_puts_on_the_mast():
+    """check --json's mast figures for a plate: the weight by hand (poles from the stop line
+    to the tip, 2 mm copper wire at 8.96 g/cm3 (CRC Handbook, from memory), the plate's mass)
+    and the uneven-gust torque M_T = 0.75 F x 0.15 B (ASCE 7-16 fig. 27.3-8 case 2, from memory)."""
+    from generators.standards.materials import get_material
+
+    d = design_of()
+    w = d.checks.wind.as_json()
+    g = 9.80665  # standard gravity (CGPM 1901)
+    rho = get_material("fiberglass").density_g_cm3 * 1000
+    area = math.pi / 4 * (0.030 ** 2 - 0.025 ** 2)
+    poles = sum(rho * g * area * (2.650 - math.hypot(*s.bottom_mm[:2]) / 1000) for s in d.plan.spreaders)
+    wire = 4 * 8960 * g * math.pi / 4 * 0.002 ** 2 * 3.75
+    hub = d.checks.mass_estimate_g / 1000 * g
+    assert w["weight_n"] == pytest.approx(poles + wire + hub, rel=1e-3)
+    assert w["mast_torque_nm"] == pytest.approx(0.75 * w["mast_force_n"] * 0.15 * 2 * 2.650, rel=1e-3)
+    assert w["wind_area_m2"] > 0 and w["tip_deflection_mm"] > 0
