@@ -148,9 +148,23 @@ class Cutter:
 
     def bounds(self) -> tuple[np.ndarray, np.ndarray]:
         """An axis-aligned box holding the cutter."""
-        ends = np.array([self.E + self.a * self.t0, self.E + self.a * self.t1])
-        reach = float(np.hypot(*np.abs(self.section).max(axis=0)))
-        return ends.min(axis=0) - reach, ends.max(axis=0) + reach
+        if getattr(self, "_box", None) is None:
+            ends = np.array([self.E + self.a * self.t0, self.E + self.a * self.t1])
+            reach = float(np.hypot(*np.abs(self.section).max(axis=0)))
+            self._box = (ends.min(axis=0) - reach, ends.max(axis=0) + reach)
+        return self._box
+
+    def sdf_or_box(self, pts: np.ndarray, margin: float = 1.0) -> np.ndarray:
+        """The signed distance where a point is within ``margin`` of the cutter's box, else the
+        distance to the box: a lower bound of the same (positive) sign, for the many tests
+        that only ask whether a point is inside a cut."""
+        lo, hi = self.bounds()
+        gap = np.maximum(np.maximum(lo - pts, pts - hi), 0.0)
+        out = np.sqrt(np.einsum("ij,ij->i", gap, gap))
+        near = out <= margin
+        if near.any():
+            out[near] = self.sdf(pts[near])
+        return out
 
 
 def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
@@ -196,13 +210,30 @@ def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
     return pts
 
 
-def poly_sdf(q: np.ndarray, poly: np.ndarray, chunk: int = 4096) -> np.ndarray:
-    """Signed distance of 2D points to a simple polygon (negative inside), all edges at once."""
-    a = poly
-    ab = np.roll(poly, -1, axis=0) - a
+_EDGES: dict[int, tuple] = {}
+
+
+def _edges(poly: np.ndarray) -> tuple:
+    """(ab, L2, slope) of a polygon's edges, kept per array: a cutter's section is asked
+    thousands of times."""
+    key = id(poly)
+    got = _EDGES.get(key)
+    if got is not None and got[0] is poly:
+        return got[1]
+    ab = np.roll(poly, -1, axis=0) - poly
     L2 = np.where((ab * ab).sum(axis=1) > 0, (ab * ab).sum(axis=1), 1.0)
     with np.errstate(divide="ignore", invalid="ignore"):
         slope = np.where(ab[:, 1] == 0, 0.0, ab[:, 0] / np.where(ab[:, 1] == 0, 1.0, ab[:, 1]))
+    if len(_EDGES) > 4096:
+        _EDGES.clear()
+    _EDGES[key] = (poly, (ab, L2, slope))
+    return ab, L2, slope
+
+
+def poly_sdf(q: np.ndarray, poly: np.ndarray, chunk: int = 4096) -> np.ndarray:
+    """Signed distance of 2D points to a simple polygon (negative inside), all edges at once."""
+    a = poly
+    ab, L2, slope = _edges(poly)
     out = np.empty(len(q))
     for lo in range(0, len(q), chunk):
         p = q[lo:lo + chunk]
