@@ -41,6 +41,7 @@ def hole_record(h: Hole) -> dict[str, Any]:
         "spreader": h.spreader,
         "note": h.note,
         **({"point_deg": h.point_deg} if h.point_deg is not None else {}),
+        **({"flat_bottom": True} if h.flat_bottom else {}),
         **_thread_fields(h),
         **_print_fields(h),
     }

@@ -61,8 +61,7 @@ def _edges(cfg: Config, plan: HubPlan, fmt) -> None:
         if h.kind in ("bore", "socket") or h.kind in POCKET_KINDS:
             continue
         face = plan.face(h.face)
-        r = max(h.radius_mm, h.countersink.diameter_mm / 2 if h.countersink else 0.0,
-                h.counterbore.diameter_mm / 2 if h.counterbore else 0.0)
+        r = h.face_radius_mm
         d = free_edge_distance(plan, face, face.to_face(h.entry_mm)) - r
         need = max(L.EDGE_FACTOR * 2 * r, L.MIN_EDGE_MM)
         if d < need - 1e-9:

@@ -122,6 +122,27 @@ class SocketHoles:
                                 f"at least {self.fmt(L.MIN_WEB_MM)} between them: more azimuth apart,"
                                 " thinner poles, other elevations or a larger bore")
 
+    def _socket_point(self, diameter: float, drill: str | None, depth: float, extend: float) -> float | None:
+        """The drill point below a blind socket's floor when the shop makes it with a twist
+        drill (straight, or opened up from an under-size one): the pole seats on the full
+        diameter, and the point runs on towards the bore."""
+        from generators.plan.hub_extras import DRILL_POINT_DEG
+        from generators.plan.shop import cutter_for
+
+        if extend > 0 or self.cfg.hub.process == "printed":
+            return None
+        c = cutter_for(diameter, drill, depth, False, self._mat_class(), self._series_for(None), self.units)
+        return DRILL_POINT_DEG if c.method in ("drill", "open_up") else None
+
+    def _point_fits(self, r_s: float, r_i: float, e: float) -> bool:
+        """Whether a drill point under the floor at ``r_i`` keeps the recommended wall to the
+        bore (else the floor is squared flat, plan/operations.py says how)."""
+        from generators.plan.hub_extras import DRILL_POINT_DEG
+        from generators.plan.rules.base import MIN_WALL_MM, RECOMMENDED_OVER_MIN
+
+        tip = r_s / math.tan(math.radians(DRILL_POINT_DEG / 2))
+        return r_i - tip * math.cos(e) - self.Rb >= RECOMMENDED_OVER_MIN * MIN_WALL_MM[self._mat_class()]
+
     def _socket_hole(self, s: SocketSpec, g: dict, r_o: float):
         sp = self.cfg.spreaders
         e, ae, r_s, r_i, z = g["e"], g["ae"], g["r_s"], g["r_i"], g["z"]
@@ -141,10 +162,14 @@ class SocketHoles:
         entry = polar(r_o, az, z(r_o))
         face = self._socket_face_for(s)
         i = s.index
+        drill = drill_name_for(2 * r_s, self._series_for(None))
+        point = self._socket_point(2 * r_s, drill, depth, extend)
+        flat = point is not None and not self._point_fits(r_s, r_i, e)
+        point = None if flat else point
         hole = Hole(id=f"S{i}", kind="socket", face=face.id, entry_mm=entry, axis=axis,
                     diameter_mm=2 * r_s, depth_mm=depth, extend_mm=extend, lead_mm=lead,
-                    drill=drill_name_for(2 * r_s, self._series_for(None)), spreader=i,
-                    note=f"spreader {i}")
+                    drill=drill, spreader=i, note=f"spreader {i}",
+                    point_deg=point, flat_bottom=flat)
         spreader = Spreader(id=i, azimuth_deg=az, elevation_deg=s.elevation_deg, socket_hole=hole.id,
                             diameter_mm=s.pole_mm, outward=(-axis[0], -axis[1], -axis[2]), mouth_mm=entry,
                             bottom_mm=hole.bottom_mm, stop_radius_mm=stop_r, stop=stop)

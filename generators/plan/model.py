@@ -100,10 +100,30 @@ class Hole:
     compensation_mm: float = 0.0  # diametral, already included in diameter_mm
     # A blind drilled hole ends in the drill's point cone of this included angle (None: flat).
     point_deg: float | None = None
+    # a blind hole drilled with a twist drill whose floor is then squared flat (the point
+    # would come too near the bore): an end mill or flat-bottom cutter of the size
+    flat_bottom: bool = False
     u_bolt: str | None = None  # plate hubs: the U-bolt whose leg passes here (spreader set, or none: the mast)
     slot_exit_mm: Vec | None = None  # a nut slot: where its centre line leaves the face
     tapped: ThreadRun | None = None  # where a tapped hole is threaded (None: not tapped)
     screw: Screw | None = None
+
+    @property
+    def face_radius_mm(self) -> float:
+        """Radius of the hole where it opens on its face: the widest of the drilled hole, its
+        countersink, its counterbore and the clearance before a thread that starts deeper."""
+        run = self.tapped
+        clear = run.clear_mm / 2 if run is not None and run.clear_mm is not None and run.start_mm > 0 else 0.0
+        return max(self.diameter_mm / 2.0, self.countersink.diameter_mm / 2 if self.countersink else 0.0,
+                   self.counterbore.diameter_mm / 2 if self.counterbore else 0.0, clear)
+
+    @property
+    def bolt_hole_mm(self) -> float:
+        """The hole the fastener passes at the face: the drilled hole, or the clearance before a
+        thread that starts deeper (a countersink or counterbore is its seat, not this hole)."""
+        run = self.tapped
+        clear = run.clear_mm if run is not None and run.clear_mm is not None and run.start_mm > 0 else 0.0
+        return max(self.diameter_mm, clear)
 
     @property
     def radius_mm(self) -> float:

@@ -173,7 +173,7 @@ class _Machined(_Face):
             hs = [h for h, _ in pairs]
             h0, c0 = pairs[0]
             why = self._why(h0)
-            extra = "; ".join(x for x in (why, self.breaks_into_all(hs)) if x)
+            extra = "; ".join(x for x in (why, self.breaks_into_all(hs), self._point_note(h0)) if x)
             if method == "drill":
                 self.add("drill", hs, drill_label(h0.drill, h0.diameter_mm, self.units), c0.drill.diameter_mm,
                          depth, through, stage, tilt,
@@ -218,6 +218,28 @@ class _Machined(_Face):
         return (f"{self.L(depth_mm)} is past a hand tap's reach of about {self.L(reach)} (its length"
                 " less the square in the wrench): a tap extension or a long-shank (pulley) tap")
 
+    def _cbore_note(self, h: Hole, dia: float, depth: float) -> str:
+        """A counterbore sinks a socket head cap screw's head (height = D, ISO 4762 k max /
+        ASME B18.3, from memory) only when it is that deep; a shallower one is a spot face
+        that lets the stock screw reach."""
+        from generators.standards.threads import parse_thread
+
+        head = parse_thread(h.thread).major_mm if h.thread else 0.0
+        if head and depth < head - 1e-6:
+            return (f"{self.L(dia)} across, a spot face so the stock screw reaches; its head stands"
+                    f" {self.L(head - depth)} proud")
+        return f"{self.L(dia)} across, head below the surface"
+
+    def _point_note(self, h: Hole) -> str:
+        """Where a blind twist-drilled hole's depth is taken, and how far its point runs on."""
+        if h.flat_bottom:
+            return ("then square the floor flat with an end mill or a flat-bottom drill of the size (a"
+                    " drill point here would come too near the bore)")
+        if h.point_deg is None or h.through:
+            return ""
+        tip = h.radius_mm / math.tan(math.radians(h.point_deg / 2))
+        return f"depth to the full diameter; the {h.point_deg:g} deg point goes {self.L(tip)} further"
+
     def _tap_on(self, hs: list[Hole]) -> str:
         """A thread that ends where its hole breaks into a socket or the bore: the tap's chamfer
         cuts only part threads over its first 3 to 5 pitches (common practice), so it runs on
@@ -247,6 +269,8 @@ class _Machined(_Face):
         return "plain hole"
 
     def _finish(self, holes: list[Hole]) -> None:
+        from generators.standards.threads import parse_thread
+
         clears: dict[tuple, list[Hole]] = {}
         for h in holes:
             run = h.tapped
@@ -269,8 +293,12 @@ class _Machined(_Face):
             notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
                      self._tap_on(hs),
                      f"thread only the last {self.L(depth - start)} ({self.L(start)} to {self.L(depth)} from"
-                     " the face), through the clearance hole" if start > 0 else "",
-                     self.tap_reach(thread, depth if not through else max(h.depth_mm for h in hs)),
+                     " the face), through the clearance hole with a reduced-shank tap (DIN 376) or a pulley"
+                     " tap, whose shank passes it (a DIN 371 tap's shank is about the thread's size)"
+                     if start > 0 else "",
+                     self.tap_reach(thread, (depth if not through else max(h.depth_mm for h in hs))
+                                    + (RUN_ON_PITCHES * parse_thread(thread).pitch_mm
+                                       if self._tap_on(hs) else 0.0)),
                      "tap straight, back off every turn to break the chip"]
             self.add("tap", hs, f"{thread} tap", None, depth, through, STAGE_HOLES, None,
                      "; ".join(x for x in notes if x))
@@ -284,8 +312,13 @@ class _Machined(_Face):
                                   h.counterbore.diameter_mm, h.counterbore.depth_mm), []).append(h)
         for (op, tool, dia, depth), hs in sinks.items():
             note = (f"to {self.L(dia)} across, screw head flush" if op == "countersink"
-                    else f"{self.L(dia)} across, head below the surface")
+                    else self._cbore_note(hs[0], dia, depth))
             self.add(op, hs, tool, dia, depth, False, STAGE_HOLES, None, note)
+
+
+# A tap run on through a wall goes about 4 pitches past it before its full threads fill the
+# wall (a plug tap's chamfer is 3 to 5 pitches, common practice).
+RUN_ON_PITCHES = 4.0
 
 
 def tap_depth_mm(h: Hole, material_class: str) -> float:

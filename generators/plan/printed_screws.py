@@ -20,7 +20,10 @@ def _span(h: Hole, pocket: Hole) -> tuple[float, float]:
 
 def printed_screws(machined: HubPlan, cfg, holes: list[Hole], pockets: list[Hole], fmt) -> list[Hole]:
     """``holes`` with the screw of every hole a pocket serves."""
+    from generators.standards.materials import get_material
+
     served = {p.serves: p for p in pockets}
+    mclass = get_material(cfg.hub.material).material_class
     out = []
     for h in holes:
         pocket = served.get(h.id)
@@ -34,11 +37,21 @@ def printed_screws(machined: HubPlan, cfg, holes: list[Hole], pockets: list[Hole
             sock = next(s for s in machined.holes if s.kind == HoleKind.SOCKET and s.spreader == h.spreader)
             cos_e = math.cos(math.radians(cfg.spreaders.elevation))
             gap = orig.depth_mm - (cfg.spreaders.diameter - sock.radius_mm) / cos_e
+            from generators.standards.holding import default_torque_nm
+            from generators.standards.threads import parse_thread
+
+            ss_t = cfg.set_screws.torque
+            ss_t = ss_t if ss_t is not None else default_torque_nm(parse_thread(orig.thread), mclass)[0]
             screw = set_screw(orig.thread, gap, start, end, cfg.set_screws.length, cfg.units, fmt, nut=nut,
-                               point=cfg.set_screws.point, torque_nm=cfg.set_screws.torque)
+                               point=cfg.set_screws.point, torque_nm=ss_t)
         elif h.kind == HoleKind.CLAMP:
+            from generators.standards.holding import default_torque_nm
+            from generators.standards.threads import parse_thread
+
+            mc = cfg.mast_clamp
+            torque = mc.torque if mc.torque is not None else default_torque_nm(parse_thread(orig.thread), mclass)[0]
             screw, _ = clamp_screw(orig.thread, orig.depth_mm, machined.bore_mm - machined.mast_od_mm,
-                                   start, end, cfg.units, fmt)
+                                   start, end, cfg.units, fmt, torque_nm=torque)
         else:
             screw = tapped_extra_screw(orig.thread, end - start, fmt)
         if nut:

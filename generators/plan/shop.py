@@ -139,4 +139,7 @@ def large_hole_tool(diameter_mm: float, depth_mm: float, through: bool, material
             else "a boring head on a mill, or a lathe, after a pilot drill"
     if through and depth_mm <= HOLE_SAW_DEPTH_MM:
         return "a Forstner bit or a hole saw (its pilot in the centre mark), or a boring head"
-    return "a Forstner bit (drill from both faces if it does not reach), or a boring head or lathe"
+    if through:
+        return "a Forstner bit (drill from both faces if it does not reach), or a boring head or lathe"
+    return ("a Forstner bit of the size (on a bit extension if it does not reach; flat bottom), or a"
+            " boring head on a mill")

@@ -8,6 +8,8 @@ import math
 
 import pytest
 
+CONFIGS = __import__("pathlib").Path(__file__).resolve().parents[2] / "configs"
+
 from generators.config.load import parse_config
 from generators.design import design
 from generators.errors import UserError
@@ -128,3 +130,39 @@ def test_the_solid_measures_what_the_plan_measures(tmp_path, name):
     m = build_config(cfg, tmp_path, force=True).manifest["hub"]
     assert m["min_wall_mm"] == pytest.approx(m["plan_min_wall_mm"], abs=0.05)
     assert m["plan_min_wall_mm"] <= m["min_wall_mm"] + 0.05
+
+
+def test_a_twist_drilled_socket_keeps_its_point_and_the_web_is_measured_to_it():
+    """A blind socket made with a stock twist drill ends in the 118 deg point (ISO 5419 names
+    the point angle; 118 deg the usual grind, from memory): the web to the bore is measured
+    from the cone's apex, r_floor - r / tan 59 deg - R_bore (hand geometry, elevation 0)."""
+    import math
+
+    from generators.config import load_config
+    from generators.design import design
+
+    d = design(load_config(CONFIGS / "five-spreader-aluminium.toml"))
+    s = d.plan.hole("S1")
+    assert s.point_deg == 118.0 and not s.flat_bottom
+    r_floor = math.hypot(*s.bottom_mm[:2])
+    web = r_floor - s.radius_mm / math.tan(math.radians(59)) - d.plan.bore_mm / 2
+    least = min(w.mm for w in d.walls if {w.a, w.b} == {"S1", "bore"})
+    assert least == pytest.approx(web, abs=0.05)
+
+
+def test_a_point_that_would_near_the_bore_gives_a_flat_floor_instead():
+    """Where the point would leave less than the recommended wall, the floor is squared flat
+    (an end mill), the plan has no point and the drill step says so."""
+    import tomllib
+
+    from generators.config.load import parse_config
+    from generators.design import design
+
+    data = tomllib.loads((CONFIGS / "five-spreader-aluminium.toml").read_text())
+    data["spreaders"]["socket_depth"] = 1.45  # the floor 0.16 in from the bore, the point 0.19 in long
+    data.pop("mast_clamp")  # its holes would meet the deeper sockets
+    d = design(parse_config(data))
+    s = d.plan.hole("S1")
+    assert s.flat_bottom and s.point_deg is None
+    drill = next(o for o in d.operations if "S1" in o.holes and o.operation in ("drill", "open_up"))
+    assert "square the floor flat" in drill.note

@@ -22,9 +22,7 @@ class PlacementRules(RulesBase):
         if h.kind in ("bore", "socket") or h.kind in POCKETS:
             return None  # the bore has its own wall limit; pockets open onto a face by design
         face = self.plan.face(h.face)
-        r = max(h.radius_mm, (h.countersink.diameter_mm / 2) if h.countersink else 0.0,
-                (h.counterbore.diameter_mm / 2) if h.counterbore else 0.0)
-        return free_edge_distance(self.plan, face, face.to_face(h.entry_mm)) - r
+        return free_edge_distance(self.plan, face, face.to_face(h.entry_mm)) - h.face_radius_mm
 
     def rule_edge_distance(self) -> RuleResult:
         worst = None
@@ -32,16 +30,21 @@ class PlacementRules(RulesBase):
             d = self.hole_edge(h)
             if d is None:
                 continue
-            ratio = d / h.diameter_mm
+            ratio = d / h.bolt_hole_mm  # the fastener's hole at the face, its seat's rim measured
             if worst is None or ratio < worst[2]:
                 worst = (h, d, ratio)
         if worst is None:
             return self._na("edge-distance", "x D", "no holes but the bore")
         h, d, ratio = worst
         status, limit = _grade(ratio, EDGE_MIN_D, EDGE_RECOMMENDED_D)
-        msg = f"{h.id}: rim {self.fmt(d)} from the nearest free edge of the {h.face} face = {ratio:.2f} x its diameter"
+        D = h.bolt_hole_mm
+        seat = 2 * h.face_radius_mm
+        at = ("" if abs(D - h.diameter_mm) < 1e-9 else f" at the face, {self.fmt(D)}") + \
+            ("" if seat <= D + 1e-9 else f", rim of its {self.fmt(seat)} seat")
+        msg = (f"{h.id}: rim {self.fmt(d)} from the nearest free edge of the {h.face} face = {ratio:.2f} x its"
+               f" diameter{at}")
         if status != PASS:
-            msg += (f"; want {EDGE_RECOMMENDED_D:g} x D = {self.fmt(EDGE_RECOMMENDED_D * h.diameter_mm)}:"
+            msg += (f"; want {EDGE_RECOMMENDED_D:g} x D = {self.fmt(EDGE_RECOMMENDED_D * D)}:"
                     " move the hole inward or use a larger hub")
         return RuleResult("edge-distance", status, ratio, limit, "x D", msg,
                           f"{COMMON}: rim at least {EDGE_MIN_D:g} x D from a free edge (faces meeting at"

@@ -20,8 +20,9 @@ class RetentionRules(RulesBase):
 
         if section.torque is not None:
             return section.torque, "torque from the config"
-        # a captive steel nut takes a steel screw's full seating torque
-        t, src = default_torque_nm(thread, "metal" if captive else self.cls)
+        # a captive steel nut holds a steel screw's thread, but it bears on the hub's material:
+        # the hub's class sets the torque either way
+        t, src = default_torque_nm(thread, self.cls)
         return t, f"default torque ({src})"
 
     def _capped(self, h, thread, force: float) -> float:
@@ -80,8 +81,9 @@ class RetentionRules(RulesBase):
         if status != PASS:
             need = f * sf / SF_CRUSH if sf > 0 else 0.0
             msg += (("; the point crushes the pole" if status == FAIL else "; little margin against crushing the pole")
-                    + f": a pad (a metal or plastic saddle) under the point, a soft"
-                    f" point (set_screws.point = \"soft\"), a smaller torque (set_screws.torque, about"
+                    + ": a pad (a metal or plastic saddle) under the point, "
+                    + ("" if point == "soft" else "a soft point (set_screws.point = \"soft\"), ")
+                    + f"a smaller torque (set_screws.torque, about"
                     f" {need * K_CRUSH * thread.major_mm / 1000.0:.2f} N m for {SF_CRUSH:g}), or a hose clamp"
                     " round the pole instead")
         return RuleResult("set-screw-crush", status, sf, limit, "SF", msg,
