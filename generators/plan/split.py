@@ -113,14 +113,16 @@ class _Splitter(BoltPlanner):
         for k, s in enumerate((offset, -offset)):
             c = self.bolt_cuts(f"B{k + 1}", s, z)
             cuts += [c.hole, *c.pockets]
-            t, src = self._torque()
             bolts.append(SplitBolt(hole=c.hole.id, offset_mm=s, height_mm=z, thread=self.thread.designation,
                                    length_mm=c.length_mm, grip_mm=c.grip_mm, seat_mm=c.seat, nut=c.nut,
-                                   torque_nm=t, torque_source=src))
+                                   torque_nm=0.0, torque_source=""))
         plan = replace(plan, holes=plan.holes + tuple(cuts))
         split = Split(azimuth_deg=self.azimuth, along=self.along, normal=self.normal, gap_mm=self.gap,
                       clearance_mm=clearance, interference_mm=interference, shared=shared,
                       dropped=tuple(sorted(dropped)), bolts=tuple(bolts), halves=self._halves(plan))
+        plan = replace(plan, split=split)
+        t, src = self._torque(plan)
+        split = replace(split, bolts=tuple(replace(b, torque_nm=t, torque_source=src) for b in bolts))
         notes = [f"split: cut through the mast axis at {self.azimuth:g} deg with a {self.fmt(self.gap)} gap;"
                  f" two {bolts[0].thread} x {self.fmt(bolts[0].length_mm)} bolts close it"
                  f" ({self.fmt(interference)} left when the bore sits on the mast)"]
@@ -235,14 +237,24 @@ class _Splitter(BoltPlanner):
                     least = min(least, float((self.T - pts[:, 2]).min()))
         return least
 
-    def _torque(self) -> tuple[float, str]:
-        from generators.standards.holding import default_torque_nm
+    def _torque(self, plan: HubPlan) -> tuple[float, str]:
+        """The config's torque, or the table's (a captive steel nut takes a steel screw's
+        seating torque, a thread in the hub the hub material's) held down so the head and
+        nut do not crush the hub (``SF_BEARING`` on its yield)."""
+        from generators.plan.split_bolts import SF_BEARING, bearing_area_mm2
+        from generators.standards.holding import K_CRUSH, default_torque_nm
+        from generators.standards.materials import get_material
 
         if self.sec.torque is not None:
             return self.sec.torque, "torque from the config"
-        # a captive steel nut takes a steel screw's full seating torque; a thread in the hub
-        # takes the hub material's
         t, src = default_torque_nm(self.thread, "metal" if self.printed else self.mclass, key="split.thread")
+        mat = get_material(plan.material)
+        area, where = min(bearing_area_mm2(plan, b.hole) for b in plan.split.bolts)
+        t_bear = mat.yield_mpa * area / SF_BEARING * K_CRUSH * self.thread.major_mm / 1000.0
+        if t_bear < t:
+            return t_bear, (f"held under the table's {t:.1f} N m so {where} ({area:.0f} mm2) presses the"
+                            f" {mat.name} at its yield ({mat.yield_mpa:g} MPa) over {SF_BEARING:g},"
+                            f" T = K F d with K = {K_CRUSH:g}")
         return t, f"default torque ({src})"
 
 

@@ -27,6 +27,24 @@ PROTRUDE_PITCHES = 2.0
 # The hole runs this far past the bolt's end so the bolt never bottoms (common practice).
 END_CLEAR_MM = 1.0
 DRILL_POINT_DEG = 118.0  # a jobber drill's point (ISO 5419 / NAS 907, from memory)
+# Bearing under a bolt's head or nut: the default torque keeps the pressure (T = K F d with
+# the low K, the high force) at the hub material's yield over this (common practice).
+SF_BEARING = 1.5
+
+
+def bearing_area_mm2(plan, bolt_hole: str) -> tuple[float, str]:
+    """The least area a split bolt presses on the hub with: under its head, and (printed)
+    its captive nut's face; and which one it is."""
+    from generators.standards.fasteners import cap_screw_head_mm
+
+    h = plan.hole(bolt_hole)
+    thread = plan.split.bolts[0].thread
+    hole = math.pi / 4 * h.diameter_mm ** 2
+    areas = [(math.pi / 4 * cap_screw_head_mm(thread, key="split.thread") ** 2 - hole, "the head")]
+    nut = next((p for p in plan.holes if p.kind == "nut_pocket" and p.serves == bolt_hole), None)
+    if nut is not None:  # the nut's face on the pocket wall: the hexagon less the hole
+        areas.append((math.sqrt(3) / 2 * nut.across_flats_mm ** 2 - hole, "the nut"))
+    return min(areas)
 
 
 @dataclass(frozen=True)

@@ -23,7 +23,8 @@ from generators.plan.rules.wind import WindRules
 # The order the rules run and are shown in, group by group.
 GROUPS = (
     ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore", "rule_hole_wall")),
-    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length", "rule_set_screw_crush")),
+    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length", "rule_set_screw_crush",
+                   "rule_split_bearing")),
     ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt", "rule_split_bolt_edge")),
     ("sleeves", ("rule_sleeve_wall",)),
     ("mass", ("rule_mass",)),

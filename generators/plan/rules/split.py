@@ -98,3 +98,29 @@ class SplitRules(RulesBase):
             msg += ("; a larger split.thread, a higher split.torque, [mast_clamp] screws as well, or a"
                     " through pin")
         return RuleResult("split-clamp", status, sf if math.isfinite(sf) else None, SF_SPLIT_CLAMP, "SF", msg, src)
+
+    def rule_split_bearing(self) -> RuleResult:
+        """The head and the nut of each bolt at its torque against the hub's yield."""
+        from generators.plan.split_bolts import SF_BEARING, bearing_area_mm2
+        from generators.standards.holding import K_CRUSH, preload_n
+
+        sp = self.plan.split
+        if sp is None:
+            return self._na("split-bearing", "SF", "the hub is not split")
+        worst = None
+        for b in sp.bolts:
+            area, where = bearing_area_mm2(self.plan, b.hole)
+            f = preload_n(b.torque_nm, b.thread, K_CRUSH)
+            sf = self.mat.yield_mpa / (f / area)
+            if worst is None or sf < worst[0]:
+                worst = (sf, b, area, where, f)
+        sf, b, area, where, f = worst
+        status, limit = _grade(sf, 1.0, SF_BEARING)
+        msg = (f"{b.hole}: at {b.torque_nm:.2f} N m the bolt pulls {f:.0f} N; {where} presses {area:.0f} mm2 of"
+               f" {self.mat.name} at {f / area:.0f} MPa against its {self.mat.yield_mpa:g} MPa yield: safety"
+               f" factor {sf:.2f}")
+        if status != PASS:
+            msg += "; a lower split.torque, a washer under the head, or a larger split.thread"
+        return RuleResult("split-bearing", status, sf, limit, "SF", msg,
+                          f"T = K F d, K = {K_CRUSH:g} (standards/holding.py); {b.torque_source}; yield from the"
+                          f" materials table; SF under 1 fails, under {SF_BEARING:g} warns ({COMMON})")
