@@ -162,7 +162,7 @@ class BoltPlanner:
                         **self._roof(r, z))
             head = Hole(id=f"{bolt_id}-head", kind="head_pocket", face=face, entry_mm=entry, axis=n,
                         diameter_mm=2 * r_cb, depth_mm=recess, lead_mm=lead, serves=bolt_id,
-                        thread=th.designation, compensation_mm=self.comp,
+                        compensation_mm=self.comp,
                         note=f"recess for the head of {bolt_id}", **self._roof(r_cb, z))
             slot_up = self.T - z
             pocket = Hole(id=f"{bolt_id}-nut", kind="nut_pocket", face="top", entry_mm=at(nut_t - allow / 2),
