@@ -157,7 +157,8 @@ class _Splitter(BoltPlanner):
             wall = 0.0 if crosses else float(np.abs(s).min() - self.gap / 2)
             if wall < self.wall - 1e-9:
                 what = "runs across" if crosses else f"comes within {self.fmt(max(wall, 0))} of"
-                raise UserError(self._key(h), f"{h.kind.replace('_', ' ')} {h.id} {what} the split at"
+                kind = {"clamp": "clamp hole", "extra": "hole"}.get(h.kind, h.kind.replace("_", " "))
+                raise UserError(self._key(h), f"{kind} {h.id} {what} the split at"
                                 f" {self.azimuth:g} deg", f"at least {self.fmt(self.wall)} of material:"
                                 " a split.azimuth between sockets or along a socket's axis, or move the hole")
 

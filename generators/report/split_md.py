@@ -37,7 +37,8 @@ def split_section(d, manifest: dict, md) -> None:
         h = plan.hole(x.hole)
         md.add(f"- {x.hole}: {h.screw.designation} socket head cap screw from the {h.face} face of half A into"
                f" {seen}, {md.L(x.offset_mm if x.offset_mm >= 0 else -x.offset_mm)} from the mast axis and"
-               f" {md.L(x.height_mm)} above the bottom face; {md.L(x.grip_mm)} of grip under the head")
+               f" {md.L(x.height_mm)} above the bottom face; {md.L(x.grip_mm)} clamped between the head and the"
+               f" {'nut' if printed else 'thread'}")
     md.add(f"- tighten each to {torque_text(b.torque_nm, plan.units)} ({b.torque_source}), the two in turns",
            f"- bolt hole {md.L(bolt.diameter_mm)}; head recess {md.L(plan.hole(b.hole + '-head').diameter_mm)}"
            if printed else f"- bolt hole: {bolt.drill} tap drill, opened to clearance in half A; counterbore"
