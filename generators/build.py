@@ -10,7 +10,7 @@ from generators.config import Config, load_config
 from generators.errors import DesignRuleError, KernelError, UserError
 from generators.output import atomic_folder
 from generators.design import Design, design
-from generators.manifest import plan_record, plate_record, write_changes, write_manifest
+from generators.manifest import plan_record, plate_record, split_record, write_changes, write_manifest
 from generators.writers import run_writers
 
 # Each writer is "module:function", called with the BuildContext in this order. A
@@ -151,6 +151,8 @@ def build_design(d: Design, out: str | Path | None = None, config_path: Path | N
             _add_walls(record, d, ctx.solid_wall)
             if d.plate is not None:
                 record["plate"] = plate_record(d.plate)
+            if d.plan.split is not None:
+                record["split"] = split_record(d.plan)
             _add_tap_depths(record, d)
             record.update(ctx.manifest)
             manifest = write_manifest(tmp, record)

@@ -169,6 +169,23 @@ def plate_record(layout) -> dict[str, Any]:
     }
 
 
+def split_record(plan) -> dict:
+    """The manifest's ``split``: the plane, the gap and the bolts."""
+    sp = plan.split
+    r = lambda x: round(float(x), 6)  # noqa: E731
+    return {
+        "azimuth_deg": r(sp.azimuth_deg), "normal": [r(c) for c in sp.normal], "gap_mm": r(sp.gap_mm),
+        "bore_clearance_mm": r(sp.clearance_mm), "interference_mm": r(sp.interference_mm),
+        "shared_sockets": list(sp.shared), "dropped_set_screws": list(sp.dropped),
+        "bolts": [{"hole": b.hole, "thread": b.thread, "screw": plan.hole(b.hole).screw.designation,
+                   "length_mm": r(b.length_mm), "grip_mm": r(b.grip_mm), "offset_mm": r(b.offset_mm),
+                   "height_mm": r(b.height_mm), "seat_mm": [r(c) for c in b.seat_mm], "nut_pocket": b.nut,
+                   "torque_nm": r(b.torque_nm), "torque_source": b.torque_source} for b in sp.bolts],
+        "halves": [{"name": h.name, "side": h.side, "holes": list(h.holes),
+                    "footprint_mm": [[r(x), r(y)] for x, y in h.footprint]} for h in sp.halves],
+    }
+
+
 def sha256(path: Path) -> str:
     return hashlib.sha256(path.read_bytes()).hexdigest()
 

@@ -37,6 +37,10 @@ def write_assembly(ctx) -> None:
         return
     cfg = ctx.config
     parts = [hub_solid(ctx.plan)]
+    if ctx.plan.split is not None:  # the two halves in place
+        from generators.cad.split import half_solids
+
+        parts = [solid for _, solid in half_solids(ctx.plan, parts[0])]
     mast_id = max(frame.mast_od_mm - 2 * max(frame.mast_od_mm * 0.08, 1.5), 0.0)  # a tube, drawn only
     parts.append(_rod((0, 0, frame.mast_bottom_mm), (0, 0, frame.mast_top_mm), frame.mast_od_mm, mast_id))
     for t in frame.tubes:

@@ -74,6 +74,7 @@ class Hub(Section):
     material: MaterialId = "hdpe"
     process: Literal["machined", "printed"] = "machined"
     max_mass: Annotated[float, Field(gt=0)] | None = None  # grams; a limit the user sets
+    split: bool = False  # two halves joined by bolts across a plane through the mast axis ([split])
 
     @model_validator(mode="after")
     def _size_given(self):
@@ -90,6 +91,22 @@ class Hub(Section):
         if self.style == "plate" and self.diameter is not None and self.sides is not None:
             raise ValueError("sides: a round plate has no sides (use across_flats for a polygon)")
         return self
+
+
+# The saw kerf (or printed gap) between the halves of a split hub: 1 mm (common practice
+# for split clamps; the bolts close it onto the mast).
+DEFAULT_SPLIT_GAP_MM = 1.0
+
+
+class Split(Section):
+    """A split hub's own keys (hub.split = true); the defaults are in generators/plan/split.py."""
+
+    thread: ThreadSpec | None = None  # the through bolts; default M5 (mm configs) or #10-24 (inch)
+    gap: Annotated[Length, Field(gt=0, le=20)] = DEFAULT_SPLIT_GAP_MM
+    azimuth: Azimuth | None = None  # the split plane's line; default between sockets 1 and 2
+    height: Annotated[Length, Field(ge=0)] | None = None  # bolt axes above the bottom face
+    offset: PositiveLength | None = None  # bolt axes from the mast axis, along the split plane
+    torque: Annotated[Torque, Field(gt=0, le=500)] | None = None  # N m; default: tightening table
 
 
 class Plate(Section):
@@ -305,6 +322,7 @@ class Config(Section):
     print: Print = Print()
     tip_cap: TipCap | None = None
     plate: Plate | None = None
+    split: Split | None = None
     sockets: tuple[SocketOverride, ...] = ()
 
     @field_validator("name")
@@ -321,6 +339,14 @@ class Config(Section):
     def _plate_section(self):
         if self.plate is not None and self.hub.style != "plate":
             raise ValueError("plate: [plate] is for hub.style = \"plate\" only")
+        return self
+
+    @model_validator(mode="after")
+    def _split_section(self):
+        if self.hub.split and self.hub.style == "plate":
+            raise UserError("hub.split", "a plate hub has no bore to split", "hub.split on a block or puck")
+        if self.split is not None and not self.hub.split:
+            raise UserError("split", "[split] is for hub.split = true only", "hub.split = true, or no [split]")
         return self
 
     @model_validator(mode="after")

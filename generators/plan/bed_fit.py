@@ -70,7 +70,10 @@ def printed_parts(plan, sleeves, tip_cap) -> list[tuple[str, list[Pt], float, st
     """(part, footprint, height, key to name) for each printed part of a design, printed
     bottom face down (the hub), flange down (a sleeve), closed end down (the tip cap)."""
     parts = []
-    if plan.process == "printed":
+    if plan.process == "printed" and plan.split is not None:
+        for half in plan.split.halves:  # each half on its own, bottom face down
+            parts.append((f"hub half {half.name[-1].upper()}", list(half.footprint), plan.body.thickness_mm, "hub"))
+    elif plan.process == "printed":
         parts.append(("hub", list(plan.body.outline), plan.body.thickness_mm, "hub"))
     for s in sleeves:
         if s.process == "printed":
@@ -95,6 +98,7 @@ def check_bed(cfg, plan, sleeves, tip_cap) -> tuple[BedFit, ...]:
             w, d = fit.square_mm
             fixes = ("split the hub into halves, a smaller hub (hub.across_flats /"
                      " hub.diameter, hub.thickness), or another bed" if part == "hub" else
+                     "a smaller hub (hub.across_flats / hub.diameter), or another bed" if part.startswith("hub half") else
                      f"a smaller {part} or another bed")
             turned = ""
             if max(abs(fit.size_mm[0] - w), abs(fit.size_mm[1] - d)) > 0.1:  # turning helps, not enough

@@ -16,7 +16,8 @@ from generators.plan.model import HubPlan
 from generators.units import format_length
 
 # Which feature a refusal names, most movable first.
-_ORDER = ("extra", "set_screw", "clamp", "nut_pocket", "insert_pocket", "socket", "bore")
+_ORDER = ("extra", "set_screw", "clamp", "split_bolt", "nut_pocket", "insert_pocket", "head_pocket", "socket",
+          "bore")
 
 
 def wall_limit_mm(cfg: Config) -> float:
@@ -87,6 +88,9 @@ def _key(cfg: Config, plan: HubPlan, a, b, b_ref: str) -> str:
         return "set_screws.position"
     if kind == "clamp":
         return "mast_clamp"
+    if kind == "split_bolt" or (kind in POCKET_KINDS and plan.split is not None
+                                and any(b.hole == hole.serves for b in plan.split.bolts)):
+        return "split.height"
     if kind in POCKET_KINDS:
         return "print.nut_allowance"
     if kind == "socket":

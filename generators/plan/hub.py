@@ -67,6 +67,10 @@ class _Planner(SocketHoles, FastenerHoles, ExtraHoles):
             from generators.plan.printed import printed_plan
 
             plan = printed_plan(plan, cfg)
+        if cfg.hub.split:
+            from generators.plan.split import split_plan
+
+            plan = split_plan(plan, cfg)
         return plan
 
     def _check_sizes(self):

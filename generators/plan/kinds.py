@@ -18,11 +18,13 @@ class HoleKind(StrEnum):
     NUT_POCKET = "nut_pocket"
     INSERT_POCKET = "insert_pocket"
     U_BOLT = "u_bolt"  # a plate hub's through hole for one U-bolt leg
+    SPLIT_BOLT = "split_bolt"  # a split hub's bolt across the split (plan/split.py)
+    HEAD_POCKET = "head_pocket"  # printed: the recess a split bolt's head sits in
 
 
 # Pockets for captive nuts and heat-set inserts (printed hubs): they carry a thread for
 # the screw through their clearance hole but are not drilled or tapped themselves.
-POCKET_KINDS = frozenset({HoleKind.NUT_POCKET, HoleKind.INSERT_POCKET})
+POCKET_KINDS = frozenset({HoleKind.NUT_POCKET, HoleKind.INSERT_POCKET, HoleKind.HEAD_POCKET})
 
 
 def is_pocket(hole) -> bool:

@@ -219,6 +219,51 @@ class Mark:
 
 
 @dataclass(frozen=True)
+class SplitBolt:
+    """One through bolt across the split: its hole, the stock cap screw and what it pulls on."""
+
+    hole: str  # the bolt's hole id (kind split_bolt)
+    offset_mm: float  # along the split plane from the mast axis (signed, along ``Split.along``)
+    height_mm: float  # above the bottom face
+    thread: str
+    length_mm: float  # stock cap screw length under the head
+    grip_mm: float  # head seat to nut (or to the thread start), across the gap
+    seat_mm: Vec  # where the head seats
+    nut: str | None  # the captive nut pocket's hole id (printed), None when tapped in half B
+    torque_nm: float
+    torque_source: str
+
+
+@dataclass(frozen=True)
+class SplitHalf:
+    name: str  # hub-a | hub-b
+    side: int  # -1: behind the plane (heads), +1: in front (nuts or threads)
+    holes: tuple[str, ...]  # the cuts in this half (the bore, the bolts, shared sockets in both)
+    footprint: tuple[Pt, ...]  # the half's outline seen from above, counter-clockwise
+
+
+@dataclass(frozen=True)
+class Split:
+    """A split hub (generators/plan/split.py): the plane through the mast axis, the gap
+    taken out of it and the bolts that close the gap on the mast."""
+
+    azimuth_deg: float  # the plane's line from the mast axis, seen from above
+    along: Vec  # unit, in the plane, horizontal (azimuth_deg)
+    normal: Vec  # unit, horizontal, from half A into half B; the bolts run along it
+    gap_mm: float
+    clearance_mm: float  # the bore's diametral clearance round the mast
+    interference_mm: float  # gap less clearance: what the bolts still close once the bore grips
+    shared: tuple[str, ...]  # sockets the plane runs along (each half holds half the pole)
+    dropped: tuple[str, ...]  # set screws left out (their sockets are shared)
+    bolts: tuple[SplitBolt, ...]
+    halves: tuple[SplitHalf, ...]
+
+    def side_of(self, p: Vec) -> float:
+        """Signed distance of a point from the mid-plane (positive towards half B)."""
+        return p[0] * self.normal[0] + p[1] * self.normal[1] + p[2] * self.normal[2]
+
+
+@dataclass(frozen=True)
 class HubPlan:
     name: str
     units: str
@@ -233,6 +278,7 @@ class HubPlan:
     spreaders: tuple[Spreader, ...]
     notes: tuple[str, ...] = field(default=())
     marks: tuple[Mark, ...] = field(default=())
+    split: Split | None = None  # hub.split: the halves and their bolts
 
     @property
     def file_stem(self) -> str:

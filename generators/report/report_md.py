@@ -210,6 +210,9 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     if d.plate is not None:
         rows = plate_md.u_bolt_rows(d, md) + rows
     md.table(["qty", "item", "size", "notes"], rows)
+    from generators.report.split_md import split_section
+
+    split_section(d, manifest, md)
     if d.plate is not None:
         md.add("## Assembly", "")
         for line in plate_md.assembly_lines(d, md):

@@ -109,6 +109,11 @@ def counterbore(thread: Thread | str, key: str = "thread") -> Counterbore:
     return Counterbore(_mm(row, "cbore_diameter"), depth, std + "; counterbore common practice")
 
 
+def cap_screw_head_mm(thread: Thread | str, key: str = "thread") -> float:
+    """Head diameter of a socket head cap screw (counterbore.csv: ISO 4762 dk max / ASME B18.3 A max)."""
+    return _mm(_row(thread, "counterbore.csv", "socket head cap screw", key), "head_diameter")
+
+
 def hex_nut(thread: Thread | str, key: str = "thread") -> HexNut:
     """Hex nut: ISO 4032 style 1 (metric; e min), ASME B18.2.2 / B18.6.3 (inch; G min or F/cos 30)."""
     row = _row(thread, "hex_nuts.csv", "hex nut", key)

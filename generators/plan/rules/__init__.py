@@ -16,23 +16,25 @@ from generators.plan.rules.base import (  # noqa: F401 - the rules' public vocab
 from generators.plan.rules.fasteners import FastenerRules
 from generators.plan.rules.placement import PlacementRules, estimate_volume_mm3  # noqa: F401
 from generators.plan.rules.retention import RetentionRules
+from generators.plan.rules.split import SplitRules
 from generators.plan.rules.walls import WallRules
 from generators.plan.rules.wind import WindRules
 
 # The order the rules run and are shown in, group by group.
 GROUPS = (
     ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore", "rule_hole_wall")),
-    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length", "rule_set_screw_crush")),
-    ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt")),
+    ("fasteners", ("rule_thread_engagement", "rule_set_screw_length", "rule_set_screw_crush",
+                   "rule_split_bearing")),
+    ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt", "rule_split_bolt_edge")),
     ("sleeves", ("rule_sleeve_wall",)),
     ("mass", ("rule_mass",)),
-    ("retention", ("rule_mast_retention",)),  # after the wind estimate: it needs its loads
+    ("retention", ("rule_mast_retention", "rule_split_clamp")),  # after the wind estimate: it needs its loads
 )
-WITH_WIND = ("rule_mast_retention",)
+WITH_WIND = ("rule_mast_retention", "rule_split_clamp")
 RULES = tuple(name for _, names in GROUPS for name in names)
 
 
-class _Rules(WallRules, FastenerRules, PlacementRules, RetentionRules, WindRules):
+class _Rules(WallRules, FastenerRules, PlacementRules, RetentionRules, SplitRules, WindRules):
     pass
 
 

@@ -115,7 +115,7 @@ class RulesBase:
 
     def _engaged(self, h: Hole) -> float:
         """Full thread length of a tapped hole in the hub material."""
-        if h.kind in ("set_screw", "clamp") and h.tapped is not None:
+        if h.kind in ("set_screw", "clamp", "split_bolt") and h.tapped is not None:
             return h.tapped.length_mm  # threaded only this long, ending at the wall
         if h.kind == "set_screw":
             sock = next(s for s in self.sockets if s.spreader == h.spreader)

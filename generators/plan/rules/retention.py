@@ -102,7 +102,8 @@ class RetentionRules(RulesBase):
             f" turns it with {mast.mast_torque_nm:.0f} N m")
         clamps = [h for h in self.plan.holes if h.kind == "clamp"]
         mc = self.cfg.mast_clamp
-        if mc is None or not clamps:
+        split = self.split_hold()
+        if (mc is None or not clamps) and split is None:
             loose = ["the hub"] + [f"the sleeve for {s.mast_designation}" for s in self.sleeve_plans]
             return RuleResult("mast-retention", WARN, None, SF_RETENTION, "SF",
                               f"nothing retains {', nor '.join(loose)} on the mast" + (f"; {demand}" if demand else "")
@@ -110,7 +111,7 @@ class RetentionRules(RulesBase):
                               COMMON)
         mu, mu_src = friction(self.cls)
         total, t, t_src = 0.0, None, ""
-        for h in clamps:
+        for h in clamps if mc is not None else ():
             name = h.thread or (self._pocket(h).thread if self._pocket(h) is not None else None)
             thread = parse_thread(name) if name else mc.thread
             t, t_src = self._torque(mc, thread, captive=not h.thread)
@@ -119,14 +120,22 @@ class RetentionRules(RulesBase):
         src = (f"friction 2 mu F per screw (point and opposite wall), mu = {mu:g} ({mu_src}); F = T / (K d),"
                f" K = {K_HOLD:g} (standards/holding.py); {t_src}; torque from an uneven gust: plan/mast_loads.py;"
                f" SF under 1 fails when the hub slides, warns when it turns; under {SF_RETENTION:g} warns ({COMMON})")
+        held = f"{len(clamps)} clamp screw(s)" if clamps else ""
+        if split is not None:  # the split bolts clamp the mast as well (rules/split.py)
+            total += split[0]
+            src += f"; split: {split[1]}"
+            held = (held + " and " if held else "") + f"{len(self.plan.split.bolts)} split bolts"
         if mast is None:
             return RuleResult("mast-retention", PASS, None, None, "SF",
-                              f"{len(clamps)} clamp screw(s) hold {total:.0f} N; loads not estimated", src)
+                              f"{held} hold {total:.0f} N; loads not estimated", src)
         sf_slide = total / max(mast.weight_n + mast.ice_weight_n, 1e-9)
         sf_turn = total * r_m / max(mast.mast_torque_nm, 1e-9)
         sf = min(sf_slide, sf_turn)
         status = FAIL if sf_slide < 1.0 else WARN if sf < SF_RETENTION else PASS
-        msg = (f"{len(clamps)} {thread.designation} clamp screw(s) at {t:.2f} N m hold {total:.0f} N along the mast"
+        what = f"{len(clamps)} {thread.designation} clamp screw(s) at {t:.2f} N m" if clamps else ""
+        if split is not None:
+            what = (what + " and " if what else "") + f"{len(self.plan.split.bolts)} split bolts"
+        msg = (f"{what} hold {total:.0f} N along the mast"
                f" and {total * r_m:.1f} N m about it; {demand}: safety factor {sf_slide:.2f} sliding,"
                f" {sf_turn:.2f} turning")
         if status != PASS:
