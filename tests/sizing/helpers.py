@@ -17,8 +17,10 @@ from generators.design import design
 from generators.errors import UserError
 
 ROOT = Path(__file__).resolve().parents[2]
-# every demo: block, puck, printed and the U-bolt plate
-DEMOS = sorted(p.name for p in (ROOT / "configs").glob("*.toml") if not p.name.endswith(".sized.toml"))
+# every demo: block, puck, printed and the U-bolt plate; the split demo is left out here for
+# time (each of its designs searches the bolt height, about 5 s: a sizing run of minutes)
+DEMOS = sorted(p.name for p in (ROOT / "configs").glob("*.toml")
+               if not p.name.endswith(".sized.toml") and "split" not in p.name)
 MM_PER_IN = 25.4
 
 

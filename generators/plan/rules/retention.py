@@ -75,16 +75,21 @@ class RetentionRules(RulesBase):
         sf, h, thread, t, t_src, f, area, a_src = worst
         status, limit = _grade(sf, 1.0, SF_CRUSH)
         wall = self.cfg.spreaders.wall
-        msg = (f"{h.id}: {point} point of {thread.size} at {t:.2f} N m presses {f:.0f} N on {area:.1f} mm2 ="
-               f" {f / area:.0f} MPa on the {pole} pole" + (f" ({self.fmt(wall)} wall)" if wall else "")
-               + f" against {strength:g} MPa across its wall: safety factor {sf:.2f}")
+        from generators.plan.screws import torque_text
+        from generators.units import format_force, format_stress
+
+        u = self.cfg.units
+        msg = (f"{h.id}: {point} point of {thread.size} at {torque_text(t, u)} presses {format_force(f, u)} on"
+               f" {area:.1f} mm2 = {format_stress(f / area, u)} on the {pole} pole"
+               + (f" ({self.fmt(wall)} wall)" if wall else "")
+               + f" against {format_stress(strength, u)} across its wall: safety factor {sf:.2f}")
         if status != PASS:
             need = f * sf / SF_CRUSH if sf > 0 else 0.0
             msg += (("; the point crushes the pole" if status == FAIL else "; little margin against crushing the pole")
                     + ": a pad (a metal or plastic saddle) under the point, "
                     + ("" if point == "soft" else "a soft point (set_screws.point = \"soft\"), ")
                     + f"a smaller torque (set_screws.torque, about"
-                    f" {need * K_CRUSH * thread.major_mm / 1000.0:.2f} N m for {SF_CRUSH:g}), or a hose clamp"
+                    f" {torque_text(need * K_CRUSH * thread.major_mm / 1000.0, u)} for {SF_CRUSH:g}), or a hose clamp"
                     " round the pole instead")
         return RuleResult("set-screw-crush", status, sf, limit, "SF", msg,
                           f"T = K F d, K = {K_CRUSH:g} (standards/holding.py); {t_src}; point area: {a_src};"

@@ -28,6 +28,10 @@ class WindRules(RulesBase):
         if wind.skipped:
             return [RuleResult("wind", WARN, None, None, "", f"wind not estimated: {wind.skipped}",
                                "issue: wind needs the tip position")]
+        from generators.units import format_force as F
+        from generators.units import format_stress as S
+
+        u = self.cfg.units
         out = []
         src_pole = ("sigma = M c / I, I = pi (D^4 - d^4)/64 (Roark; Gere; from memory); q = rho V^2 / 2"
                     f" or EN 1991-1-4 qp(z) ({wind.pressure_basis});"
@@ -42,9 +46,9 @@ class WindRules(RulesBase):
             st = WARN  # a solid rod's figure is no proof for a tube
         ld = self.cfg.loads
         extra = [x for x, on in (("wire pre-tension", ld.wire_tension > 0), ("ice", ld.ice_thickness > 0)) if on]
-        msg = (f"spreader {wind.worst_spreader}: {wind.spreader_stress_mpa:.0f} MPa at the socket mouth in"
+        msg = (f"spreader {wind.worst_spreader}: {S(wind.spreader_stress_mpa, u)} at the socket mouth in"
                f" {speed_text(wind.speed_m_s, self.cfg.units)} (wind, own weight{''.join(', ' + x for x in extra)})"
-               f" against {wind.spreader_allowable_mpa:.0f} MPa"
+               f" against {S(wind.spreader_allowable_mpa, u)}"
                f" ({'ultimate' if brittle else 'yield'}, {ld.spreader_material}){note}: safety factor {sf:.2f}")
         if st != PASS:
             msg += ("; the pole itself is at risk in this wind" if sf < 1 else "") + \
@@ -55,8 +59,8 @@ class WindRules(RulesBase):
         out.append(RuleResult("wind-spreader", st, sf, warn_below if st != FAIL else fail_below, "SF", msg, src_pole))
         sf = wind.sf_bearing
         st = FAIL if sf < SF_FAIL else WARN if sf < SF_BEARING else PASS
-        msg = (f"pole on the socket walls: {wind.bearing_pressure_mpa:.1f} MPa peak against"
-               f" {wind.hub_bearing_allowable_mpa:g} MPa in {self.mat.name}: safety factor {sf:.2f}")
+        msg = (f"pole on the socket walls: {S(wind.bearing_pressure_mpa, u, 1)} peak against"
+               f" {S(wind.hub_bearing_allowable_mpa, u, 1)} in {self.mat.name}: safety factor {sf:.2f}")
         if st != PASS:
             msg += ": deeper sockets (spreaders.socket_depth), a stiffer hub material, or a metal sleeve"
         out.append(RuleResult("wind-bearing", st, sf, SF_BEARING, "SF", msg,
@@ -64,14 +68,14 @@ class WindRules(RulesBase):
                               " allowable bearing from the materials table"))
         if wind.sf_set_screw is None:
             out.append(RuleResult("wind-set-screw", PASS if self.cfg.set_screws else WARN, None, None, "SF",
-                                  f"axial pull {wind.set_screw_pull_n:.0f} N per pole;"
+                                  f"axial pull {F(wind.set_screw_pull_n, u)} per pole;"
                                   + (" no set screws hold it: add [set_screws]" if not self.cfg.set_screws
                                      else " set-screw hold not estimated"), COMMON))
         else:
             sf = wind.sf_set_screw
             st = FAIL if sf < SF_FAIL else WARN if sf < SF_SET_SCREW else PASS
-            msg = (f"axial pull {wind.set_screw_pull_n:.0f} N per pole against about"
-                   f" {wind.set_screw_capacity_n:.0f} N held by its set screws: safety factor {sf:.2f}")
+            msg = (f"axial pull {F(wind.set_screw_pull_n, u)} per pole against about"
+                   f" {F(wind.set_screw_capacity_n, u)} held by its set screws: safety factor {sf:.2f}")
             if st != PASS:
                 msg += ": two set screws per spreader, a larger thread, or a through bolt"
             out.append(RuleResult("wind-set-screw", st, sf, SF_SET_SCREW, "SF", msg,
