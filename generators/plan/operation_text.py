@@ -10,7 +10,7 @@ from generators.plan.operations import Operation
 from generators.units import format_length
 
 VERBS = {
-    "mark": "Mark", "centre_punch": "Centre-punch", "pilot": "Pilot", "drill": "Drill", "open_up": "Open up",
+    "mark": "Mark", "centre_punch": "Centre-punch", "wait": "Stop", "pilot": "Pilot", "drill": "Drill", "open_up": "Open up",
     "cut": "Cut", "tap": "Tap", "countersink": "Countersink", "counterbore": "Counterbore", "print": "Print",
     "clear": "Clear", "check": "Check", "fit_nut": "Fit nut", "press_insert": "Press insert",
 }
@@ -47,8 +47,8 @@ def step_sentence(op: Operation, units: str) -> str:
     depth = depth_text(op, units)
     extra = "; ".join(x for x in (op.note, tilt_text(op)) if x)
     size = L(op.tool_diameter_mm) if op.tool_diameter_mm else ""
-    if op.operation == "mark":
-        return op.note[:1].upper() + op.note[1:] + "."
+    if op.operation in ("mark", "wait"):
+        return ("STOP: " if op.operation == "wait" else "") + op.note[:1].upper() + op.note[1:] + "."
     if op.operation == "centre_punch":
         tail = ", with the work already tilted for the tilted holes" if op.note else ""
         return f"Centre-punch every crosshair (or spot each with a centre drill){tail}: {holes}."

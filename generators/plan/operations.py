@@ -31,7 +31,7 @@ class Operation:
 
     face: str
     step: int
-    operation: str  # mark | centre_punch | pilot | drill | open_up | cut | tap | countersink |
+    operation: str  # mark | centre_punch | wait | pilot | drill | open_up | cut | tap | countersink |
     # counterbore | print | clear | check | fit_nut | press_insert
     holes: tuple[str, ...]
     tool: str
@@ -142,9 +142,26 @@ class _Machined(_Face):
                  note="with the work already tilted for the tilted holes" if tilted else "")
         for stage in (STAGE_BORE, STAGE_SOCKETS, STAGE_HOLES):
             group = [h for h in holes if stage_of(h) == stage]
+            if stage == STAGE_HOLES and group:
+                self._wait_for_sockets(group)
             if group:
                 self._cut_stage(group, stage, tilts)
         self._finish(holes)
+
+    def _wait_for_sockets(self, holes: list[Hole]) -> None:
+        """A hole that breaks into a socket drilled from another face waits for that socket:
+        a step saying so, in the face's own order (a template is read top to bottom)."""
+        socket_of = {s.id: s.socket_hole for s in self.plan.spreaders}
+        others = []
+        for h in holes:
+            sid = socket_of.get(h.spreader) if h.kind == HoleKind.SET_SCREW else None
+            if sid and self.plan.hole(sid).face != self.face and sid not in others:
+                others.append(sid)
+        if others:
+            faces = sorted({self.plan.hole(s).face for s in others}, key=lambda f: [x.id for x in self.plan.faces].index(f))
+            self.add("wait", others, "-", stage=STAGE_HOLES,
+                     note=f"cut sockets {', '.join(others)} first, from their own faces ({', '.join(faces)}),"
+                          " then come back to the steps below")
 
     def _cut_stage(self, holes: list[Hole], stage: int, tilts: dict[str, float]) -> None:
         plans = []

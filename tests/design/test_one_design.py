@@ -122,3 +122,14 @@ def test_the_report_gives_the_templates_tilt_notes(builds):
         assert n in report
     dxf_text = " ".join(p.read_text(errors="ignore") for p in (r.folder / "templates").glob("*.dxf"))
     assert "Tilt for" in dxf_text
+
+
+def test_a_face_waits_for_sockets_cut_from_other_faces(builds):
+    """The top face's set screws break into sockets drilled from the flats: its template says
+    STOP before them, in its own order (a template is read top to bottom)."""
+    ops = builds["five-spreader-aluminium.toml"].manifest["operations"]
+    top = sorted((o for o in ops if o["face"] == "top"), key=lambda o: o["step"])
+    wait = next(i for i, o in enumerate(top) if o["operation"] == "wait")
+    first_set_screw = next(i for i, o in enumerate(top) if any(h.startswith("T") for h in o["holes"]))
+    assert wait < first_set_screw
+    assert set(top[wait]["holes"]) == {"S1", "S2", "S3", "S4", "S5"}
