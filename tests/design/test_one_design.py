@@ -130,6 +130,7 @@ def test_a_face_waits_for_sockets_cut_from_other_faces(builds):
     ops = builds["five-spreader-aluminium.toml"].manifest["operations"]
     top = sorted((o for o in ops if o["face"] == "top"), key=lambda o: o["step"])
     wait = next(i for i, o in enumerate(top) if o["operation"] == "wait")
-    first_set_screw = next(i for i, o in enumerate(top) if any(h.startswith("T") for h in o["holes"]))
+    first_set_screw = next(i for i, o in enumerate(top) if o["operation"] in ("pilot", "drill")
+                           and any(h.startswith("T") for h in o["holes"]))
     assert wait < first_set_screw
     assert set(top[wait]["holes"]) == {"S1", "S2", "S3", "S4", "S5"}
