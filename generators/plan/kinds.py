@@ -18,6 +18,7 @@ class HoleKind(StrEnum):
     NUT_POCKET = "nut_pocket"
     INSERT_POCKET = "insert_pocket"
     U_BOLT = "u_bolt"  # a plate hub's through hole for one U-bolt leg
+    PIN = "pin"  # a through bolt across the hub and the mast (plan/pin.py)
 
 
 # Pockets for captive nuts and heat-set inserts (printed hubs): they carry a thread for
