@@ -200,3 +200,13 @@ def pin_of(plan) -> Hole | None:
 def exit_point(h: Hole):
     """Where the pin's axis leaves the body (its exit face)."""
     return h.point_at(h.depth_mm)
+
+
+def exits_on(plan, face_id: str) -> list[Hole]:
+    """The pins leaving by ``face_id``, each as a hole entering there (id ``<id>-exit``), so a
+    template of that face marks where the pin comes out."""
+    from dataclasses import replace
+
+    return [replace(h, id=f"{h.id}-exit", face=face_id, entry_mm=h.bottom_mm, axis=tuple(-c for c in h.axis),
+                    note=f"where {h.id} comes out (drilled from the {h.face} face)", exit_face=h.face)
+            for h in plan.holes if h.kind == "pin" and h.exit_face == face_id]
