@@ -101,20 +101,21 @@ def test_several_materials(tmp_path):
 
 
 def test_failing_start_is_grown(tmp_path):
-    """A hub too thin for its set screws (check fails or refuses) is grown, then sized."""
-    text = HEX.read_text(encoding="utf-8").replace("thickness = 46", "thickness = 20")
-    cfg = tmp_path / "thin.toml"
+    """A hub too small across the flats for its holes (check refuses) is grown, then sized.
+    (Not too thin: the demo's through bolt sits at a fixed height, which sizing holds.)"""
+    text = HEX.read_text(encoding="utf-8").replace("across_flats = 160", "across_flats = 110")
+    cfg = tmp_path / "small.toml"
     cfg.write_text(text, encoding="utf-8")
     assert run(["check", str(cfg)])[0] != 0
     code, data = size_json(cfg)
     assert code == 0
-    assert data["design"]["hub.thickness"] > 20
+    assert data["design"]["hub.across_flats"] > 110
     assert run(["check", data["file"]])[0] == 0
 
 
 def test_strict_cannot_lift_warnings_the_hub_does_not_decide(tmp_path):
     """The metric demo warns on its brittle poles in its wind and on turning on the mast
-    (friction cannot hold a gust's torque): no hub size lifts those, so --strict has no
+    (its through bolt bears on acetal): no hub size lifts those, so --strict has no
     answer and says which rules bind, while the plain search finds one."""
     code, loose = size_json(copy(HEX, tmp_path / "a"))
     code_s, strict = size_json(copy(HEX, tmp_path / "b"), "--strict")
