@@ -42,6 +42,7 @@ def hole_record(h: Hole) -> dict[str, Any]:
         "note": h.note,
         **({"point_deg": h.point_deg} if h.point_deg is not None else {}),
         **({"flat_bottom": True} if h.flat_bottom else {}),
+        **({"exit_face": h.exit_face, "exit_mm": [_r(c) for c in h.bottom_mm]} if h.exit_face is not None else {}),
         **_thread_fields(h),
         **_print_fields(h),
     }

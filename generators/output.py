@@ -85,16 +85,46 @@ def user_files(target: Path) -> list[str]:
     return [f for f in _all_files(target) if f not in wrote]
 
 
+def _empty_dirs(folder: Path) -> list[str]:
+    """Empty folders under ``folder`` (a build writes none, so they are the builder's)."""
+    out = []
+    for root, dirs, names in os.walk(folder):
+        if not dirs and not names and Path(root) != folder:
+            out.append(Path(root).relative_to(folder).as_posix())
+    return sorted(out)
+
+
+def _blocked(tmp: Path, rel: str) -> bool:
+    """Whether the new build already has ``rel``, or a file where one of its folders goes."""
+    p = tmp / rel
+    if p.exists() or p.is_symlink():
+        return True
+    return any((q.exists() or q.is_symlink()) and (q.is_symlink() or not q.is_dir())
+               for q in list(p.parents)[: len(Path(rel).parts) - 1])
+
+
 def _carry_over(target: Path, tmp: Path) -> list[str]:
-    """Move the builder's own files from the old output into the new one (before the swap)."""
+    """Move the builder's own files (and empty folders) from the old output into the new one
+    (before the swap); every clash is looked for first, and a failed move puts back what moved."""
     keep = user_files(target)
-    clash = [f for f in keep if (tmp / f).exists() or (tmp / f).is_symlink()]
+    dirs = _empty_dirs(target) if keep or _written_before(target) is not None else []
+    clash = [f for f in keep + dirs if _blocked(tmp, f)]
     if clash:
         raise UserError("--out", f"{target / clash[0]} was not written by hubwright and the new build writes a"
-                        " file of that name; nothing was touched", "move or rename it, then build again")
-    for f in keep:
-        (tmp / f).parent.mkdir(parents=True, exist_ok=True)
-        os.replace(target / f, tmp / f)
+                        " file or folder of that name; nothing was touched", "move or rename it, then build again")
+    moved: list[str] = []
+    try:
+        for f in keep:
+            (tmp / f).parent.mkdir(parents=True, exist_ok=True)
+            os.replace(target / f, tmp / f)
+            moved.append(f)
+        for d in dirs:
+            (tmp / d).mkdir(parents=True, exist_ok=True)
+    except OSError:
+        for f in reversed(moved):
+            (target / f).parent.mkdir(parents=True, exist_ok=True)
+            os.replace(tmp / f, target / f)
+        raise
     return keep
 
 

@@ -58,7 +58,7 @@ def _with_unit(value, info, table: dict[str, float], what: str, accepted: str) -
         return float(value)
     import re
 
-    m = re.fullmatch(r"\s*([0-9]*\.?[0-9]+)\s*([A-Za-z .-]+)\s*", str(value))
+    m = re.fullmatch(r"\s*([-+]?[0-9]*\.?[0-9]+)\s*([A-Za-z .-]+)\s*", str(value))
     unit = m and m[2].strip().lower()
     if not m or unit not in table:
         raise UserError(info.field_name or what, f"{value!r} is not a {what}", accepted)
@@ -79,6 +79,15 @@ def _force(value, info):
     return _with_unit(value, info, _FORCE, "force", 'a number in N, or "50 N", "0.2 kN", "11 lbf"')
 
 
+# Mass units, exact by definition: 1 lb = 453.59237 g, 1 oz = 1/16 lb (NIST SP 811).
+_MASS = {"g": 1.0, "kg": 1000.0, "lb": 453.59237, "lbs": 453.59237, "oz": 28.349523125}
+
+
+def _mass(value, info):
+    """A mass in grams: a bare number is grams; a string may say "g", "kg", "lb" or "oz"."""
+    return _with_unit(value, info, _MASS, "mass", 'a number of grams, or "800 g", "1.2 kg", "2.5 lb"')
+
+
 Length = Annotated[float, BeforeValidator(_wrap(_length, "length"))]
 """A length in mm."""
 Angle = Annotated[float, BeforeValidator(_wrap(_angle, "angle"))]
@@ -90,6 +99,8 @@ Speed = Annotated[float, BeforeValidator(_wrap(_speed, "speed"))]
 Torque = Annotated[float, BeforeValidator(_wrap(_torque))]
 """A tightening torque in N m."""
 Force = Annotated[float, BeforeValidator(_wrap(_force))]
+Mass = Annotated[float, BeforeValidator(_wrap(_mass))]
+"""A mass in grams."""
 """A force in N."""
 
 

@@ -122,6 +122,11 @@ def _user_error(exc: ValidationError, units: str) -> UserError:
         return UserError(_key(loc), f"{value} is not a finite number", "a finite number")
     if kind in ("tuple_type", "list_type"):
         return UserError(_key(loc), f"{value!r} is not a list", "a TOML list, e.g. [45, 135]")
+    if kind == "int_from_float":
+        return UserError(_key(loc), f"{value!r} is not a whole number", "a whole number, e.g. 6")
+    if kind in ("int_parsing", "float_parsing", "int_type", "float_type"):
+        return UserError(_key(loc), f"{value!r} is not a number", "a plain number" + (
+            " of grams" if loc and loc[-1] == "max_mass" else ""))
     if kind == "literal_error":
         accepted = msg.replace("Input should be ", "")
         msg = f"{err.get('input')!r} is not accepted"

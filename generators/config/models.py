@@ -9,7 +9,7 @@ from typing import Annotated, Literal
 
 from pydantic import BaseModel, BeforeValidator, ConfigDict, Field, ValidationInfo, field_validator, model_validator
 
-from generators.config.fields import Angle, Azimuth, Force, Length, Speed, Torque, _units, _wrap
+from generators.config.fields import Angle, Azimuth, Force, Length, Mass, Speed, Torque, _units, _wrap
 from generators.errors import UserError
 from generators.units import length_mm
 
@@ -73,7 +73,7 @@ class Hub(Section):
     corner_chamfer: Annotated[Length, Field(ge=0)] = 0.0
     material: MaterialId = "hdpe"
     process: Literal["machined", "printed"] = "machined"
-    max_mass: Annotated[float, Field(gt=0)] | None = None  # grams; a limit the user sets
+    max_mass: Annotated[Mass, Field(gt=0)] | None = None  # grams; a limit the user sets
     split: bool = False  # two halves joined by bolts across a plane through the mast axis ([split])
 
     @model_validator(mode="after")
@@ -212,6 +212,20 @@ class MastClamp(Section):
         return self
 
 
+def _bolt_thread(value, info: ValidationInfo):
+    from generators.standards.bolts import check_bolt_thread
+
+    return check_bolt_thread(_thread(value, info), key=info.field_name or "thread")
+
+
+class MastPin(Section):
+    """A through bolt (or threaded rod) across the hub and the mast (generators/plan/pin.py)."""
+
+    thread: Annotated[object, BeforeValidator(_wrap(_bolt_thread))]
+    height: Annotated[Length, Field(ge=0)] | None = None  # axis above the bottom face; default: the clamp height, else mid-thickness
+    azimuth: Azimuth | None = None  # default: the first gap between sockets whose opposite end is also one
+
+
 class ExtraHole(Section):
     id: Annotated[str, Field(min_length=1, max_length=24, pattern=r"^[A-Za-z0-9_.-]+$")]
     face: Literal["top", "bottom"] = "top"
@@ -314,6 +328,7 @@ class Config(Section):
     spreaders: Spreaders
     set_screws: SetScrews | None = None
     mast_clamp: MastClamp | None = None
+    mast_pin: MastPin | None = None
     holes: tuple[ExtraHole, ...] = ()
     shop: Shop = Shop()
     output: Output = Output()
@@ -339,6 +354,9 @@ class Config(Section):
     def _plate_section(self):
         if self.plate is not None and self.hub.style != "plate":
             raise ValueError("plate: [plate] is for hub.style = \"plate\" only")
+        if self.mast_pin is not None and self.hub.style == "plate":
+            raise ValueError("mast_pin: a plate hub is held by its mast U-bolts (leave [mast_pin] out,"
+                             " or use hub.style = \"block\" or \"puck\")")
         return self
 
     @model_validator(mode="after")

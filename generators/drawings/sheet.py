@@ -24,6 +24,7 @@ from generators.drawings.prose import SheetProse, info_lines  # noqa: F401
 from generators.plan.geometry import Pt
 from generators.plan.model import Face, Hole, HubPlan
 from generators.plan.operation_text import step_sentence
+from generators.plan.pin import exits_on
 from generators.plan.shop import drill_series
 
 
@@ -46,7 +47,7 @@ class _SheetBuilder(SheetProse):
         self.operations = operations
         self.units = cfg.units
         self.series = drill_series(cfg)
-        self.holes = plan.holes_on(face.id)
+        self.holes = plan.holes_on(face.id) + exits_on(plan, face.id)  # a pin's far end, where this face has a sheet
         if face.kind == "rim":
             radius = face.rim_radius_mm if face.rim_radius_mm is not None else plan.body.diameter_mm / 2
             self.frame = Frame(face, radius, rim_join_azimuth(self.holes))

@@ -16,8 +16,8 @@ from generators.plan.model import HubPlan
 from generators.units import format_length
 
 # Which feature a refusal names, most movable first.
-_ORDER = ("extra", "set_screw", "clamp", "split_bolt", "nut_pocket", "insert_pocket", "head_pocket", "socket",
-          "bore")
+_ORDER = ("extra", "set_screw", "pin", "clamp", "split_bolt", "nut_pocket", "insert_pocket", "head_pocket",
+          "socket", "bore")
 
 
 def wall_limit_mm(cfg: Config) -> float:
@@ -61,14 +61,16 @@ def _edges(cfg: Config, plan: HubPlan, fmt) -> None:
     for h in plan.holes:
         if h.kind in ("bore", "socket") or h.kind in POCKET_KINDS:
             continue
-        face = plan.face(h.face)
         r = h.face_radius_mm
-        d = free_edge_distance(plan, face, face.to_face(h.entry_mm)) - r
-        need = max(L.EDGE_FACTOR * 2 * r, L.MIN_EDGE_MM)
-        if d < need - 1e-9:
-            raise UserError(_key(cfg, plan, h, None, f"face:{h.face}"), f"the rim of {h.kind.replace('_', ' ')}"
-                            f" {h.id} is {fmt(max(d, 0))} from an edge of the {h.face} face",
-                            f"at least {fmt(need)} (half the hole diameter, common practice)")
+        ends = [(h.face, h.entry_mm)] + ([(h.exit_face, h.bottom_mm)] if h.exit_face is not None else [])
+        for face_id, at in ends:
+            face = plan.face(face_id)
+            d = free_edge_distance(plan, face, face.to_face(at)) - r
+            need = max(L.EDGE_FACTOR * 2 * r, L.MIN_EDGE_MM)
+            if d < need - 1e-9:
+                raise UserError(_key(cfg, plan, h, None, f"face:{face_id}"), f"the rim of {h.kind.replace('_', ' ')}"
+                                f" {h.id} is {fmt(max(d, 0))} from an edge of the {face_id} face",
+                                f"at least {fmt(need)} (half the hole diameter, common practice)")
 
 
 def _key(cfg: Config, plan: HubPlan, a, b, b_ref: str) -> str:
@@ -91,6 +93,10 @@ def _key(cfg: Config, plan: HubPlan, a, b, b_ref: str) -> str:
     if kind == "split_bolt" or (kind in POCKET_KINDS and plan.split is not None
                                 and any(b.hole == hole.serves for b in plan.split.bolts)):
         return "split.height"
+    if kind == "pin":
+        if b_ref.startswith("face:"):
+            return "mast_pin.height" if b_ref[5:] in ("top", "bottom") else "mast_pin.azimuth"
+        return "mast_pin.azimuth" if cfg.mast_pin.azimuth is not None else "mast_pin.height"
     if kind in POCKET_KINDS:
         return "print.nut_allowance"
     if kind == "socket":

@@ -16,6 +16,7 @@ from generators.plan.hub_extras import ExtraHoles
 from generators.plan.hub_fasteners import FastenerHoles
 from generators.plan.hub_sockets import SocketHoles
 from generators.plan.model import Body, Face, Hole, HubPlan
+from generators.plan.pin import pin_holes
 from generators.plan.holes import drill_name_for, material_class
 from generators.units import format_length
 
@@ -57,6 +58,7 @@ class _Planner(SocketHoles, FastenerHoles, ExtraHoles):
         holes += sockets
         holes += self._set_screws(sockets)
         holes += self._clamps(sockets)
+        holes += pin_holes(self, sockets, holes)
         holes += self._extras(holes, sockets)
         plan = HubPlan(name=cfg.name, units=cfg.units, material=cfg.hub.material,
                        process=cfg.hub.process, mast_designation=cfg.mast.size.designation,

@@ -20,6 +20,7 @@ class HoleKind(StrEnum):
     U_BOLT = "u_bolt"  # a plate hub's through hole for one U-bolt leg
     SPLIT_BOLT = "split_bolt"  # a split hub's bolt across the split (plan/split.py)
     HEAD_POCKET = "head_pocket"  # printed: the recess a split bolt's head sits in
+    PIN = "pin"  # a through bolt across the hub and the mast (plan/pin.py)
 
 
 # Pockets for captive nuts and heat-set inserts (printed hubs): they carry a thread for

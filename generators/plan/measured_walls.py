@@ -82,6 +82,8 @@ def meets_by_design(a: Hole, b: Hole) -> bool:
             return True
         if x.kind in ("socket", "clamp") and y.kind == "bore" and x.extend_mm > 0:
             return True
+        if x.kind == "pin" and y.kind == "bore":  # it crosses the bore on both sides
+            return True
         if x.kind in POCKET_KINDS and getattr(x, "serves", None) == y.id:
             return True
     return False
@@ -90,7 +92,9 @@ def meets_by_design(a: Hole, b: Hole) -> bool:
 def faces_entered(h: Hole, plan: HubPlan) -> set[str]:
     """The faces a cut opens onto by design."""
     out = {h.face}
-    if h.through or h.kind == "bore":
+    if h.exit_face is not None:  # a pin leaves by the opposite side face
+        out.add(h.exit_face)
+    elif h.through or h.kind == "bore":
         out |= {"top", "bottom"}
     if h.kind in POCKET_KINDS:
         out |= {f.id for f in plan.faces}  # a nut slot slides in from a face; its walls are the printed rules'

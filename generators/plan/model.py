@@ -107,6 +107,7 @@ class Hole:
     slot_exit_mm: Vec | None = None  # a nut slot: where its centre line leaves the face
     tapped: ThreadRun | None = None  # where a tapped hole is threaded (None: not tapped)
     screw: Screw | None = None
+    exit_face: str | None = None  # a through hole leaving by a face other than top or bottom (a pin)
 
     @property
     def face_radius_mm(self) -> float:

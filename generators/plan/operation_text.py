@@ -13,6 +13,7 @@ VERBS = {
     "mark": "Mark", "centre_punch": "Centre-punch", "wait": "Stop", "pilot": "Pilot", "drill": "Drill", "open_up": "Open up",
     "cut": "Cut", "tap": "Tap", "countersink": "Countersink", "counterbore": "Counterbore", "print": "Print",
     "clear": "Clear", "check": "Check", "fit_nut": "Fit nut", "press_insert": "Press insert",
+    "match_drill": "Match-drill",
 }
 
 

@@ -15,6 +15,7 @@ from dataclasses import dataclass, replace
 from generators.plan.geometry import dot
 from generators.plan.kinds import POCKET_KINDS, HoleKind
 from generators.plan.model import Hole, HubPlan
+from generators.plan.pin_ops import match_drill_rows, pin_breaks_into, pin_why
 from generators.plan.shop import PILOT_ABOVE_MM, cutter_for, drill_label, needs_pilot, pilot_drill
 from generators.units import format_length
 
@@ -32,7 +33,7 @@ class Operation:
     face: str
     step: int
     operation: str  # mark | centre_punch | wait | pilot | drill | open_up | cut | tap | countersink |
-    # counterbore | print | clear | check | fit_nut | press_insert
+    # counterbore | print | clear | check | fit_nut | press_insert | match_drill
     holes: tuple[str, ...]
     tool: str
     tool_diameter_mm: float | None
@@ -121,7 +122,7 @@ class _Face:
             return "breaks into the bore"
         if h.kind == HoleKind.SOCKET and h.extend_mm > 0:
             return "runs into the bore"
-        return ""
+        return pin_breaks_into(h)
 
 
 class _Machined(_Face):
@@ -147,6 +148,7 @@ class _Machined(_Face):
             if group:
                 self._cut_stage(group, stage, tilts)
         self._finish(holes)
+        match_drill_rows(self, holes)
 
     def _wait_for_sockets(self, holes: list[Hole]) -> None:
         """A hole that breaks into a socket drilled from another face waits for that socket:
@@ -281,6 +283,8 @@ class _Machined(_Face):
             return "mast bore"
         if h.kind == HoleKind.U_BOLT:
             return "U-bolt leg clearance"
+        if h.kind == HoleKind.PIN:
+            return pin_why(h)
         if h.countersink is not None or h.counterbore is not None:
             return "screw clearance"
         return "plain hole"
@@ -383,6 +387,7 @@ class _Printed(_Face):
                          False, STAGE_HOLES, None,
                          f"for {h.serves}: press in square with a soldering iron and insert tip, about 220-250 C"
                          " for PETG (common practice; follow the insert maker's figure), flush with the face")
+        match_drill_rows(self, holes)
 
         self.rows.sort(key=lambda r: r["stage"])  # stable: the bore, then sockets, then the rest
 

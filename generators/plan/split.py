@@ -152,9 +152,12 @@ class _Splitter(BoltPlanner):
             pts = self._samples(h)
             if not len(pts):
                 continue
-            s = pts @ nrm
-            crosses = s.min() < -self.gap / 2 and s.max() > self.gap / 2
-            wall = 0.0 if crosses else float(np.abs(s).min() - self.gap / 2)
+            crosses, wall = False, np.inf
+            for part in self._pieces(h, pts):  # a mast pin is two cuts, one each side of the bore
+                s = part @ nrm
+                c = bool(s.min() < -self.gap / 2 and s.max() > self.gap / 2)
+                crosses |= c
+                wall = min(wall, 0.0 if c else float(np.abs(s).min() - self.gap / 2))
             if wall < self.wall - 1e-9:
                 what = "runs across" if crosses else f"comes within {self.fmt(max(wall, 0))} of"
                 kind = {"clamp": "clamp hole", "extra": "hole"}.get(h.kind, h.kind.replace("_", " "))
@@ -162,7 +165,17 @@ class _Splitter(BoltPlanner):
                                 f" {self.azimuth:g} deg", f"at least {self.fmt(self.wall)} of material:"
                                 " a split.azimuth between sockets or along a socket's axis, or move the hole")
 
+    @staticmethod
+    def _pieces(h, pts: np.ndarray) -> list[np.ndarray]:
+        if h.kind != "pin":
+            return [pts]
+        d = np.array(h.bottom_mm[:2]) - np.array(h.entry_mm[:2])
+        along = pts[:, :2] @ (d / np.linalg.norm(d))
+        return [p for p in (pts[along >= 0], pts[along < 0]) if len(p)]
+
     def _key(self, h) -> str:
+        if h.kind == "pin":
+            return "mast_pin.azimuth"
         if h.kind == "clamp":
             return "mast_clamp.azimuths"
         i = next((k for k, spec in enumerate(self.cfg.holes) if spec.id == h.id), None)

@@ -94,9 +94,10 @@ class Space:
                        lowest_safety_factor(checks), d)
 
     def hub_independent(self, start: tuple[int, ...]) -> frozenset[str]:
-        """Rules that warn at the start and still warn with every dimension doubled: the
-        hub's size does not lift them (a pole's own strength, friction against a gust), so
-        ``--strict`` leaves them as warnings instead of finding no design."""
+        """Rules that warn at the start and still warn with every dimension doubled (grown by
+        half, or a quarter, where that is refused): the hub's size does not lift them (a pole's
+        own strength, friction against a gust), so ``--strict`` leaves them as warnings instead
+        of finding no design."""
         from generators.design import design
 
         def warns(point) -> set[str] | None:
@@ -106,11 +107,14 @@ class Space:
                 return None
             return {r["id"] for r in d.checks_json["rules"] if r["status"] == "warn"}
 
-        big = tuple(self._grown(k, d, 2.0) for k, d in zip(start, self.dims))
-        here, there = warns(start), warns(big)
-        if here is None or there is None:
+        here = warns(start)
+        if here is None:
             return frozenset()
-        return frozenset(here & there)
+        for factor in (2.0, 1.5, 1.25):  # a doubled hub may be refused (a stock table's end, a bed)
+            there = warns(tuple(self._grown(k, d, factor) for k, d in zip(start, self.dims)))
+            if there is not None:
+                return frozenset(here & there)
+        return frozenset()
 
     def step(self, point: tuple[int, ...], i: int, by: int) -> tuple[int, ...]:
         p = list(point)

@@ -24,7 +24,7 @@ MM_PER_IN = 25.4
 # Shop steps (common practice): whole millimetres, or sixteenths of an inch.
 STEP_MM = {"mm": 1.0, "in": MM_PER_IN / 16}
 STEP_DEG = 1.0
-HELD = ("mast", "loads", "set_screws", "mast_clamp", "reducers", "holes", "output", "shop", "print")
+HELD = ("mast", "loads", "set_screws", "mast_clamp", "mast_pin", "reducers", "holes", "output", "shop", "print")
 ACCEPTED = "a numeric hub or spreader key such as hub.thickness, hub.across_flats, spreaders.socket_depth"
 
 

@@ -21,7 +21,6 @@ class Material:
     yield_mpa: float
     bearing_mpa: float
     modulus_gpa: float
-    engagement_factor: float
     source: str
 
 
@@ -33,7 +32,7 @@ def _materials() -> tuple[dict[str, Material], dict[str, str]]:
             id=r["id"], name=r["name"], material_class=r["material_class"],
             density_g_cm3=r["density_g_cm3"], tensile_mpa=r["tensile_mpa"], yield_mpa=r["yield_mpa"],
             bearing_mpa=r["bearing_mpa"], modulus_gpa=r["modulus_gpa"],
-            engagement_factor=r["engagement_factor"], source=r["source"])
+            source=r["source"])
         for alias in (r["aliases"] or "").split(";"):
             if alias:
                 aliases[alias] = r["id"]

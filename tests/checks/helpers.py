@@ -24,9 +24,13 @@ def demo(path=METRIC) -> dict:
 
 
 def modified(path=METRIC, **sections) -> dict:
-    """The demo with keys changed: modified(hub={"thickness": 30}); None deletes a key."""
+    """The demo with keys changed: modified(hub={"thickness": 30}); None deletes a key
+    (or, for a section, the section: mast_pin=None)."""
     data = copy.deepcopy(demo(path))
     for section, changes in sections.items():
+        if changes is None:  # the whole section dropped
+            data.pop(section, None)
+            continue
         if not isinstance(changes, dict):
             data[section] = changes
             continue

@@ -41,7 +41,7 @@ def test_default_config_is_the_metric_demo_and_prints_a_table():
 
 def test_thin_wall_exits_1_with_a_suggestion(tmp_path):
     cfg = tmp_path / "thin.toml"
-    cfg.write_text(toml_text(modified(hub={"thickness": 24}, spreaders={"elevation": 0})), encoding="utf-8")
+    cfg.write_text(toml_text(modified(hub={"thickness": 24}, spreaders={"elevation": 0}, mast_pin=None)), encoding="utf-8")
     p = hubwright("check", str(cfg))
     assert p.returncode == 1, p.stdout + p.stderr
     line = next(ln for ln in p.stdout.splitlines() if ln.startswith("socket-wall"))
@@ -73,7 +73,7 @@ def test_build_refuses_a_failed_rule_unless_forced():
     from generators.errors import DesignRuleError
     from generators.design import design
 
-    d = design(parse_config(modified(hub={"thickness": 24}, spreaders={"elevation": 0})))
+    d = design(parse_config(modified(hub={"thickness": 24}, spreaders={"elevation": 0}, mast_pin=None)))
     with pytest.raises(DesignRuleError) as exc:
         design_checks(d, force=False)
     assert exc.value.exit_code == 1 and "socket-wall" in exc.value.line() and "\n" not in exc.value.line()
@@ -83,7 +83,7 @@ def test_build_refuses_a_failed_rule_unless_forced():
 
 def test_build_cli_exits_1_and_writes_nothing(tmp_path):
     cfg = tmp_path / "thin.toml"
-    cfg.write_text(toml_text(modified(hub={"thickness": 24}, spreaders={"elevation": 0})), encoding="utf-8")
+    cfg.write_text(toml_text(modified(hub={"thickness": 24}, spreaders={"elevation": 0}, mast_pin=None)), encoding="utf-8")
     p = hubwright("build", str(cfg), "--out", str(tmp_path / "out"))
     assert p.returncode == 1
     assert "socket-wall" in p.stderr and "--force" in p.stderr

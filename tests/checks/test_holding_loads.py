@@ -41,11 +41,13 @@ def test_torque_in_inch_pound_force():
     assert parse_config(data).set_screws.torque == pytest.approx(25 * 0.0254 * 4.4482216152605)
 
 
-def test_metric_demo_without_a_clamp_warns_on_retention():
-    cfg, _, checks = checks_for(demo(METRIC))
-    assert cfg.mast_clamp is None
+def test_metric_demo_without_a_clamp_or_pin_warns_on_retention():
+    # nothing retains the hub: a warning naming what to add (fail is for a holding rated under 1)
+    cfg, _, checks = checks_for(modified(mast_pin=None))
+    assert cfg.mast_clamp is None and cfg.mast_pin is None
     r = rule(checks, "mast-retention")
-    assert r.status == "warn" and "nothing retains the hub" in r.message and "[mast_clamp]" in r.message
+    assert r.status == "warn" and r.value is None and "nothing retains the hub" in r.message
+    assert "[mast_pin]" in r.message and "[mast_clamp]" in r.message
 
 
 def test_set_screws_on_a_thin_fibreglass_wall_fail_crush_and_name_the_fix():
@@ -85,7 +87,7 @@ def test_brittle_pole_below_1_5_fails():
 
 
 def test_retention_with_clamp_screws_by_hand():
-    cfg, plan, checks = checks_for(demo(INCH))
+    cfg, plan, checks = checks_for(modified(INCH, mast_pin=None, mast_clamp={"azimuths": None, "count": 2}))
     # two 1/4-20 screws in acetal, default 3.0 N m (a third of 87 in-lbf seating torque), K = 0.3
     F = 3.0 / (0.3 * 0.25 * 0.0254)
     hold = 2 * (2 * 0.15 * F)                           # 2 mu F per screw, mu 0.15 plastic on metal
@@ -94,7 +96,9 @@ def test_retention_with_clamp_screws_by_hand():
     sf_turn = hold * (1.510 * 0.0254 / 2) / m.mast_torque_nm  # 1-1/4 in EMT, OD 1.510 in (ANSI C80.3)
     r = rule(checks, "mast-retention")
     assert r.value == pytest.approx(min(sf_slide, sf_turn), rel=1e-4)
-    assert sf_slide > 2 and sf_turn < 1 and r.status == "warn" and "through bolt" in r.message
+    # friction alone cannot hold the turning: under SF 1 it fails, naming the through bolt
+    assert sf_slide > 2 and sf_turn < 1 and r.status == "fail" and r.limit == 1.0
+    assert "[mast_pin]" in r.message and "through bolt" in r.message
 
 
 def _inch_case_mast(ice_mm=0.0):

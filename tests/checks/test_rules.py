@@ -40,7 +40,7 @@ def test_rule_results_carry_every_key():
 def test_thin_wall_fails_with_a_suggestion():
     # 24 mm thick, level 20.5 mm sockets: (24 - 20.5) / 2 = 1.75 mm of wall, under the
     # 3 mm minimum for plastics (common practice)
-    _, _, checks = checks_for(modified(hub={"thickness": 24}, spreaders={"elevation": 0}))
+    _, _, checks = checks_for(modified(hub={"thickness": 24}, spreaders={"elevation": 0}, mast_pin=None))
     r = rule(checks, "socket-wall")
     assert r.status == "fail"
     assert r.value == pytest.approx((24 - 20.5) / 2, abs=0.01)  # sampled on the true shapes, to 0.01 mm
@@ -71,7 +71,7 @@ def test_blind_socket_close_to_the_bore():
 def test_thread_engagement_in_a_thin_hub():
     # 30 mm thick, level sockets: from the top face to the socket wall 15 - 10.25 = 4.75 mm
     # of M6 thread = 0.79 D, under the 1 x D minimum (table factor 1.5 x D recommended)
-    _, _, checks = checks_for(modified(hub={"thickness": 30}, spreaders={"elevation": 0}))
+    _, _, checks = checks_for(modified(hub={"thickness": 30}, spreaders={"elevation": 0}, mast_pin=None))
     r = rule(checks, "thread-engagement")
     assert r.status == "fail"
     assert r.value == pytest.approx(4.75 / 6.0, abs=1e-3)
@@ -104,7 +104,8 @@ def test_set_screw_too_long_or_too_short(length, status):
 def test_edge_distance_warns_then_fails():
     # a 6 mm hole at (0, 83) is 90.64 - 83 - 3 = 4.64 mm (0.77 D) from the chamfer at 90 deg:
     # inside the planner's half-diameter limit, under the recommended 1 x D
-    data = modified(holes=[{"id": "TIE", "face": "top", "at": [0.0, 83.0], "diameter": 6}])
+    data = modified(holes=[{"id": "TIE", "face": "top", "at": [0.0, 83.0], "diameter": 6}], hub={"corner_chamfer": 6},
+                    mast_pin=None)
     cfg, plan, checks = checks_for(data)
     r = rule(checks, "edge-distance")
     assert r.status == "warn" and "TIE" in r.message
@@ -165,7 +166,7 @@ def test_mass_against_the_users_limit(limit, status):
 
 def test_mass_estimate_by_hand_for_a_plain_block():
     # a hexagon of across-flats s has area (sqrt 3 / 2) s^2 (plane geometry); minus the bore
-    data = modified(hub={"corner_chamfer": 0}, set_screws={"per_spreader": 0}, holes=[])
+    data = modified(hub={"corner_chamfer": 0}, set_screws={"per_spreader": 0}, holes=[], mast_pin=None)
     cfg, plan, _ = checks_for(data)
     hexagon = math.sqrt(3) / 2 * 160 ** 2 * 46
     bore = math.pi * 25.5 ** 2 * 46

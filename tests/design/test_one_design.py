@@ -63,7 +63,7 @@ def test_a_build_computes_its_design_once(tmp_path, monkeypatch):
     monkeypatch.setattr(hub._Planner, "plan", counted("plan", hub._Planner.plan))
     monkeypatch.setattr(reducer, "plan_sleeve", counted("sleeve", reducer.plan_sleeve))
     monkeypatch.setattr(rules, "evaluate", counted("rules", rules.evaluate))
-    result = build(CONFIGS / "six-spreader-sleeves.toml", tmp_path, masts=("30 mm",))
+    result = build(CONFIGS / "six-spreader-sleeves.toml", tmp_path, masts=("38 mm",))
     n_sleeves = len(result.manifest["reducers"])
     assert calls == {"plan": 1, "sleeve": n_sleeves, "rules": 1}
 

@@ -164,3 +164,44 @@ def test_a_builders_file_named_like_a_new_output_is_refused(tmp_path):
     assert e.value.key == "--out" and "jig.dxf" in str(e.value)
     assert (target / "jig.dxf").read_text() == "the builder's own sketch"
     assert (target / "report.md").read_text() == "old"
+
+
+def _owned_part(tmp_path):
+    from generators.output import MARKER, marker_text
+
+    target = tmp_path / "part"
+    target.mkdir()
+    (target / "report.md").write_text("old")
+    (target / MARKER).write_text(marker_text("part", ["report.md"]))
+    return target
+
+
+def test_a_builders_folder_where_the_build_writes_a_file_is_refused_untouched(tmp_path):
+    """A builder's file under a folder named like a new output file (jig.dxf/readme.txt) is
+    a clash found before anything moves: every file of theirs stays where it was."""
+    from generators.errors import UserError
+    from generators.output import atomic_folder
+
+    target = _owned_part(tmp_path)
+    (target / "a-notes.txt").write_text("first")  # sorts before the clash: must not be moved away
+    (target / "jig.dxf").mkdir()
+    (target / "jig.dxf" / "readme.txt").write_text("mine")
+    with pytest.raises(UserError) as e:
+        with atomic_folder(target) as tmp:
+            (tmp / "report.md").write_text("new")
+            (tmp / "jig.dxf").write_text("a new output")
+    assert "jig.dxf" in str(e.value)
+    assert (target / "a-notes.txt").read_text() == "first"
+    assert (target / "jig.dxf" / "readme.txt").read_text() == "mine"
+    assert (target / "report.md").read_text() == "old"
+
+
+def test_a_builders_empty_folder_survives_a_rebuild(tmp_path):
+    from generators.output import atomic_folder
+
+    target = _owned_part(tmp_path)
+    (target / "photos" / "later").mkdir(parents=True)
+    with atomic_folder(target) as tmp:
+        (tmp / "report.md").write_text("new")
+    assert (target / "photos" / "later").is_dir()
+    assert (target / "report.md").read_text() == "new"

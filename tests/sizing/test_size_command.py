@@ -102,14 +102,15 @@ def test_several_materials(tmp_path):
 
 
 def test_failing_start_is_grown(tmp_path):
-    """A hub too thin for its set screws (check fails or refuses) is grown, then sized."""
-    text = HEX.read_text(encoding="utf-8").replace("thickness = 46", "thickness = 20")
-    cfg = tmp_path / "thin.toml"
+    """A hub too small across the flats for its holes (check refuses) is grown, then sized.
+    (Not too thin: the demo's through bolt sits at a fixed height, which sizing holds.)"""
+    text = HEX.read_text(encoding="utf-8").replace("across_flats = 160", "across_flats = 110")
+    cfg = tmp_path / "small.toml"
     cfg.write_text(text, encoding="utf-8")
     assert run(["check", str(cfg)])[0] != 0
     code, data = size_json(cfg)
     assert code == 0
-    assert data["design"]["hub.thickness"] > 20
+    assert data["design"]["hub.across_flats"] > 110
     assert run(["check", data["file"]])[0] == 0
 
 

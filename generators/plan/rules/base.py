@@ -67,7 +67,7 @@ class RuleResult:
         d = asdict(self)
         for k in ("value", "limit"):
             if d[k] is not None:
-                d[k] = round(d[k], 3)
+                d[k] = round(d[k], 6)  # the table and messages round the figure once, not twice
         return d
 
 

@@ -16,7 +16,9 @@ class FastenerRules(RulesBase):
         tapped = [h for h in self.plan.holes if h.thread and h.kind not in POCKETS]
         if not tapped:
             return self._na("thread-engagement", "x D", "no tapped holes")
-        factor = self.mat.engagement_factor
+        from generators.standards.engagement import ENGAGEMENT_D
+
+        factor = ENGAGEMENT_D[self.mat.material_class]  # the same figure the taps are planned to
         worst = None
         for h in tapped:
             le = self._engaged(h)
@@ -30,8 +32,8 @@ class FastenerRules(RulesBase):
             msg += (f"; want {factor:g} x D = {self.fmt(factor * self._thread(h).major_mm)}: a thicker hub,"
                     " a finer or smaller thread, a threaded insert, or a deeper hole")
         return RuleResult("thread-engagement", status, ratio, limit, "x D", msg,
-                          f"materials table engagement factor ({self.mat.id}: {factor:g} x D; {COMMON});"
-                          f" under {ENGAGE_MIN_D:g} x D fails")
+                          f"engagement {factor:g} x D in {self.mat.material_class} (standards/engagement.py, the depth the"
+                          f" taps are planned to; {COMMON}); under {ENGAGE_MIN_D:g} x D fails")
 
     def set_screw_fit(self) -> list[dict]:
         """Per set screw: distance from its face to the seated pole, where its thread is (a

@@ -97,23 +97,37 @@ class RetentionRules(RulesBase):
                           f" bound; SF under 1 fails, under {SF_CRUSH:g} warns ({COMMON})")
 
     def rule_mast_retention(self, wind) -> RuleResult:
-        """Sliding (weight) and turning (uneven-gust torque) against clamp-screw friction."""
+        """Sliding (weight) and turning (uneven-gust torque) against a through bolt
+        ([mast_pin], rules/pin_hold.py) or else clamp-screw friction; turning held by friction
+        alone under SF 1 fails."""
+        from generators.units import format_force as _F, format_moment as _M
+        from generators.plan.pin import pin_of
         from generators.standards.holding import K_HOLD, friction, preload_n
         from generators.standards.threads import parse_thread
 
+        _u = self.cfg.units
+
+        pin = pin_of(self.plan)
+        if pin is not None:
+            from generators.plan.rules.pin_hold import pin_retention
+
+            return pin_retention(self, wind, pin, SF_RETENTION)
         mast = wind.mast
         demand = "" if mast is None else (
-            f"the antenna weighs {mast.weight_n:.0f} N (+ {mast.ice_weight_n:.0f} N ice) and an uneven gust"
-            f" turns it with {mast.mast_torque_nm:.0f} N m")
+            f"the antenna weighs {_F(mast.weight_n, _u)} (+ {_F(mast.ice_weight_n, _u)} ice) and an uneven gust"
+            f" turns it with {_M(mast.mast_torque_nm, _u, 0)}")
         clamps = [h for h in self.plan.holes if h.kind == "clamp"]
         mc = self.cfg.mast_clamp
         split = self.split_hold()
         if (mc is None or not clamps) and split is None:
             loose = ["the hub"] + [f"the sleeve for {s.mast_designation}" for s in self.sleeve_plans]
+            # nothing to rate: a warning that names what to add (the issue's rule: warn when
+            # nothing retains the hub, fail when what retains it rates under 1)
             return RuleResult("mast-retention", WARN, None, SF_RETENTION, "SF",
                               f"nothing retains {', nor '.join(loose)} on the mast" + (f"; {demand}" if demand else "")
-                              + ": add [mast_clamp] screws, a through bolt or pin, or a stop collar under the hub",
-                              COMMON)
+                              + ": add [mast_pin] (a through bolt across the hub and the mast, drilled in place),"
+                              " [mast_clamp] screws, or a stop collar under the hub (a collar holds weight, not"
+                              " turning)", COMMON)
         mu, mu_src = friction(self.cls)
         total, t, t_src = 0.0, None, ""
         for h in clamps if mc is not None else ():
@@ -124,7 +138,7 @@ class RetentionRules(RulesBase):
         r_m = min([self.plan.mast_od_mm] + [s.mast_od_mm for s in self.sleeve_plans]) / 2000.0
         src = (f"friction 2 mu F per screw (point and opposite wall), mu = {mu:g} ({mu_src}); F = T / (K d),"
                f" K = {K_HOLD:g} (standards/holding.py); {t_src}; torque from an uneven gust: plan/mast_loads.py;"
-               f" SF under 1 fails when the hub slides, warns when it turns; under {SF_RETENTION:g} warns ({COMMON})")
+               f" SF under 1 fails (sliding or turning); under {SF_RETENTION:g} warns ({COMMON})")
         held = f"{len(clamps)} clamp screw(s)" if clamps else ""
         if split is not None:  # the split bolts clamp the mast as well (rules/split.py)
             total += split[0]
@@ -132,18 +146,21 @@ class RetentionRules(RulesBase):
             held = (held + " and " if held else "") + f"{len(self.plan.split.bolts)} split bolts"
         if mast is None:
             return RuleResult("mast-retention", PASS, None, None, "SF",
-                              f"{held} hold {total:.0f} N; loads not estimated", src)
+                              f"{held} hold {_F(total, _u)}; loads not estimated", src)
         sf_slide = total / max(mast.weight_n + mast.ice_weight_n, 1e-9)
         sf_turn = total * r_m / max(mast.mast_torque_nm, 1e-9)
         sf = min(sf_slide, sf_turn)
-        status = FAIL if sf_slide < 1.0 else WARN if sf < SF_RETENTION else PASS
-        what = f"{len(clamps)} {thread.designation} clamp screw(s) at {t:.2f} N m" if clamps else ""
+        status = FAIL if sf < 1.0 else WARN if sf < SF_RETENTION else PASS
+        what = f"{len(clamps)} {thread.designation} clamp screw(s) at {_M(t, _u, 2)}" if clamps else ""
         if split is not None:
             what = (what + " and " if what else "") + f"{len(self.plan.split.bolts)} split bolts"
-        msg = (f"{what} hold {total:.0f} N along the mast"
-               f" and {total * r_m:.1f} N m about it; {demand}: safety factor {sf_slide:.2f} sliding,"
+        msg = (f"{what} hold {_F(total, _u)} along the mast"
+               f" and {_M(total * r_m, _u)} about it; {demand}: safety factor {sf_slide:.2f} sliding,"
                f" {sf_turn:.2f} turning")
-        if status != PASS:
+        if sf_turn < 1.0:
+            msg += ("; friction cannot hold the hub from turning in the gust: add [mast_pin] with a thread"
+                    " (e.g. \"M10\" or \"3/8-16\"), a through bolt across the hub and the mast, drilled in place")
+        elif status != PASS:
             msg += ("; more or larger clamp screws, a higher clamp torque (mast_clamp.torque) in a metal hub,"
-                    " or a through bolt or pin (a hub that turns on the mast in a gust is not held by friction)")
-        return RuleResult("mast-retention", status, sf, SF_RETENTION, "SF", msg, src)
+                    " or a through bolt ([mast_pin]; a hub that turns on the mast in a gust is not held by friction)")
+        return RuleResult("mast-retention", status, sf, 1.0 if status == FAIL else SF_RETENTION, "SF", msg, src)

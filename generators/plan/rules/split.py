@@ -73,6 +73,9 @@ class SplitRules(RulesBase):
 
     def rule_split_clamp(self, wind) -> RuleResult:
         """The bolts' grip on the mast against what the antenna puts on it."""
+        from generators.units import format_force as _F, format_moment as _M
+
+        _u = self.cfg.units
         got = self.split_hold()
         if got is None:
             return self._na("split-clamp", "SF", "the hub is not split")
@@ -85,18 +88,20 @@ class SplitRules(RulesBase):
         mast = wind.mast
         if mast is None:
             return RuleResult("split-clamp", PASS, None, None, "SF",
-                              f"the split bolts hold {total:.0f} N along the mast; loads not estimated", src)
+                              f"the split bolts hold {_F(total, _u)} along the mast; loads not estimated", src)
         sf_slide = total / max(mast.weight_n + mast.ice_weight_n, 1e-9)
         sf_turn = total * r_m / max(mast.mast_torque_nm, 1e-9)
-        sf = min(sf_slide, sf_turn)
+        pinned = any(h.kind == "pin" for h in self.plan.holes)
+        # with a through bolt ([mast_pin]) the turning is the pin's (mast-retention), not the grip's
+        sf = sf_slide if pinned else min(sf_slide, sf_turn)
         status = FAIL if sf_slide < 1.0 else WARN if sf < SF_SPLIT_CLAMP else PASS
-        msg = (f"the split bolts hold {total:.0f} N along the mast and {total * r_m:.1f} N m about it;"
-               f" the antenna weighs {mast.weight_n:.0f} N (+ {mast.ice_weight_n:.0f} N ice) and an uneven"
-               f" gust turns it with {mast.mast_torque_nm:.0f} N m: safety factor {sf_slide:.2f} sliding,"
-               f" {sf_turn:.2f} turning")
+        msg = (f"the split bolts hold {_F(total, _u)} along the mast and {_M(total * r_m, _u)} about it;"
+               f" the antenna weighs {_F(mast.weight_n, _u)} (+ {_F(mast.ice_weight_n, _u)} ice) and an uneven"
+               f" gust turns it with {_M(mast.mast_torque_nm, _u, 0)}: safety factor {sf_slide:.2f} sliding,"
+               f" {sf_turn:.2f} turning" + ("; the through bolt holds the turning (mast-retention)" if pinned else ""))
         if status != PASS:
             msg += ("; a larger split.thread, a higher split.torque, [mast_clamp] screws as well, or a"
-                    " through pin")
+                    " through bolt ([mast_pin])")
         return RuleResult("split-clamp", status, sf if math.isfinite(sf) else None, SF_SPLIT_CLAMP, "SF", msg, src)
 
     def rule_split_bearing(self) -> RuleResult:

@@ -1,0 +1,104 @@
+"""The hub held on the mast by a through bolt ([mast_pin]): what it holds turning and sliding.
+
+Model (an estimate, like the rest of the holding rules):
+
+- The bolt crosses the mast and is loaded in shear where it passes each mast wall, so a
+  turning hub is held by a couple ``T = 2 F r`` with ``r`` the mast radius (the smallest
+  mast when sleeves adapt others) and a sliding hub by ``2 F``.
+- ``F`` is the least of
+  (a) the bolt's shear strength on one plane, ``0.6 f_ub A_s``
+      (standards/bolts.py: class 8.8 800 MPa, ISO 898-1; grade 5 120 ksi, SAE J429;
+      alpha_v = 0.6, EN 1993-1-8 table 3.4; from memory), and
+  (b) bearing of the bolt on the hub at the bore, ``sigma_b d l`` with the materials
+      table's allowable bearing stress and an effective length ``l = min(wall, 2 d)``,
+      the hub's wall along the bolt from the bore to the nearer outer face (common
+      practice: a pin bears mostly near the shear plane, about two diameters deep).
+- The mast's own wall in bearing is not checked: the mast tables give a wall thickness but
+  no material. Clamp-screw friction is not added: the bolt's clearance lets the hub slip
+  before the bolt bears.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from generators.plan.rules.base import COMMON, FAIL, PASS, WARN, RuleResult
+
+BEARING_LENGTH_D = 2.0  # effective bearing length, bolt diameters (common practice)
+
+
+@dataclass(frozen=True)
+class PinHold:
+    d_mm: float
+    shear_n: float
+    bearing_n: float
+    bearing_mpa: float
+    wall_mm: float
+    bearing_len_mm: float
+    force_n: float
+    governs: str
+    mast_radius_mm: float
+
+    @property
+    def torque_nm(self) -> float:
+        return 2.0 * self.force_n * self.mast_radius_mm / 1000.0
+
+    @property
+    def slide_n(self) -> float:
+        return 2.0 * self.force_n
+
+
+def pin_hold(thread, pin, bore_mm: float, bearing_mpa: float, mast_radius_mm: float) -> PinHold:
+    """What the pin ``pin`` (a plan hole) of ``thread`` holds; see the module docstring."""
+    from generators.standards.bolts import shear_capacity_n
+
+    d = thread.major_mm
+    ends = (pin.entry_mm, pin.bottom_mm)
+    wall = min(math.hypot(p[0], p[1]) for p in ends) - bore_mm / 2
+    length = min(wall, BEARING_LENGTH_D * d)
+    shear = shear_capacity_n(thread)
+    bearing = bearing_mpa * d * length
+    force = min(shear, bearing)
+    return PinHold(d_mm=d, shear_n=shear, bearing_n=bearing, bearing_mpa=bearing_mpa, wall_mm=wall,
+                   bearing_len_mm=length, force_n=force, governs="bolt shear" if shear <= bearing else "bearing on the hub",
+                   mast_radius_mm=mast_radius_mm)
+
+
+def pin_retention(rules, wind, pin, sf_warn: float) -> RuleResult:
+    """The mast-retention result of a hub with a pin (``rules``: the rule set)."""
+    from generators.units import format_force as _F, format_moment as _M
+    from generators.standards.bolts import SHEAR_SOURCE, UTS_SOURCE, ultimate_mpa
+
+    _u = rules.cfg.units
+
+    thread = rules.cfg.mast_pin.thread
+    r_m = min([rules.plan.mast_od_mm] + [s.mast_od_mm for s in rules.sleeve_plans]) / 2
+    hold = pin_hold(thread, pin, rules.plan.bore_mm, rules.mat.bearing_mpa, r_m)
+    grade = ultimate_mpa(thread)[1]
+    src = (f"T = 2 F r_mast, F = min(bolt shear, bearing on the hub); bolt shear {SHEAR_SOURCE}; {UTS_SOURCE};"
+           f" bearing {rules.mat.bearing_mpa:g} MPa ({rules.mat.name}, materials table: {rules.mat.source}) x d x"
+           f" min(wall, {BEARING_LENGTH_D:g} d) ({COMMON}); stress area A_s = pi/4 (d - k P)^2 (standards/ubolts.py);"
+           f" mast wall bearing not checked (no mast material in the tables); torque from an uneven gust:"
+           f" plan/mast_loads.py; SF under 1 fails, under {sf_warn:g} warns ({COMMON})")
+    what = (f"{thread.designation} through bolt ({grade}, {hold.shear_n / 1000:.1f} kN in shear per plane;"
+            f" bearing on the {rules.mat.name} {hold.bearing_mpa:g} MPa x {hold.d_mm:.1f} mm x"
+            f" {hold.bearing_len_mm:.1f} mm = {hold.bearing_n / 1000:.1f} kN, {hold.governs} governs) holds"
+            f" {_F(hold.slide_n, _u)} along the mast and {_M(hold.torque_nm, _u)} about it"
+            f" (2 F x r = {r_m:.1f} mm)")
+    mast = wind.mast
+    if mast is None:
+        return RuleResult("mast-retention", PASS, None, None, "SF", what + "; loads not estimated; the mast's wall"
+                          " in bearing is not checked", src)
+    sf_slide = hold.slide_n / max(mast.weight_n + mast.ice_weight_n, 1e-9)
+    sf_turn = hold.torque_nm / max(mast.mast_torque_nm, 1e-9)
+    sf = min(sf_slide, sf_turn)
+    status = FAIL if sf < 1.0 else WARN if sf < sf_warn else PASS
+    msg = (f"{what}; the antenna weighs {_F(mast.weight_n, _u)} (+ {_F(mast.ice_weight_n, _u)} ice) and an uneven"
+           f" gust turns it with {_M(mast.mast_torque_nm, _u, 0)}: safety factor {sf_slide:.2f} sliding,"
+           f" {sf_turn:.2f} turning; the mast's wall in bearing is not checked (no mast material in the tables)")
+    if status != PASS:
+        fix = ("a larger mast_pin.thread" if hold.governs == "bolt shear" else
+               "a larger mast_pin.thread (more bearing), a harder hub material or a metal sleeve in the pin hole")
+        msg += f"; {fix}"
+    return RuleResult("mast-retention", status, sf, sf_warn, "SF", msg, src)
