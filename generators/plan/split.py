@@ -35,7 +35,7 @@ import numpy as np
 from generators.config.models import Config, Split as SplitSection
 from generators.errors import UserError
 from generators.plan.cutters import Cutter
-from generators.plan.model import HubPlan, Split, SplitBolt, SplitHalf
+from generators.plan.model import HubPlan, Mark, Split, SplitBolt, SplitHalf
 from generators.plan.split_bolts import BoltPlanner
 from generators.units import format_length
 
@@ -129,7 +129,31 @@ class _Splitter(BoltPlanner):
         if shared:
             notes.append(f"split: {', '.join(shared)} shared by the halves, which clamp the pole"
                          + (f"; set screw(s) {', '.join(sorted(dropped))} left out" if dropped else ""))
-        return replace(plan, split=split, notes=plan.notes + tuple(notes))
+        return replace(plan, split=split, notes=plan.notes + tuple(notes), marks=plan.marks + self._saw_marks(plan))
+
+    def _saw_marks(self, plan: HubPlan) -> tuple[Mark, ...]:
+        """The saw line on the top and bottom templates (a machined hub is drilled whole, then
+        sawn along it), with a tick into half A."""
+        from generators.plan.geometry import inside_polygon
+
+        outline = plan.body.outline
+
+        def reach(d) -> float:
+            lo, hi = 0.0, 2 * max(math.hypot(*p) for p in outline)
+            for _ in range(40):
+                mid = (lo + hi) / 2
+                lo, hi = (mid, hi) if inside_polygon((mid * d[0], mid * d[1]), outline) else (lo, mid)
+            return lo
+
+        al, nm = self.along, self.normal
+        a, b = reach((-al[0], -al[1])), reach((al[0], al[1]))
+        out = []
+        for face, z in (("top", self.T), ("bottom", 0.0)):
+            p0, p1 = (-a * al[0], -a * al[1], z), (b * al[0], b * al[1], z)
+            out.append(Mark(face, p0, p1, f"saw line: {self.fmt(self.gap)} kerf on it, after every hole"))
+            t0 = (0.8 * b * al[0], 0.8 * b * al[1], z)
+            out.append(Mark(face, t0, (t0[0] - 6 * nm[0], t0[1] - 6 * nm[1], z), "half A"))
+        return tuple(out)
 
     # ---- the plane ------------------------------------------------------------------
     def _samples(self, h) -> np.ndarray:

@@ -110,8 +110,14 @@ class Space:
         here = warns(start)
         if here is None:
             return frozenset()
-        for factor in (2.0, 1.5, 1.25):  # a doubled hub may be refused (a stock table's end, a bed)
-            there = warns(tuple(self._grown(k, d, factor) for k, d in zip(start, self.dims)))
+        # a doubled hub may be refused (a stock table's end, a bed, a pin held at its height):
+        # smaller growth, then one dimension at a time
+        n = len(self.dims)
+        tries = [(f, None) for f in (2.0, 1.5, 1.25, 1.1)] + [(f, i) for f in (2.0, 1.25) for i in range(n)]
+        for factor, only in tries:
+            point = tuple(self._grown(k, d, factor) if only in (None, i) else k
+                          for i, (k, d) in enumerate(zip(start, self.dims)))
+            there = warns(point) if point != start else None
             if there is not None:
                 return frozenset(here & there)
         return frozenset()

@@ -88,3 +88,45 @@ def test_whole_hub_misses_the_bed_and_each_half_fits(split_design):
     assert not bed_fit("hub", plan.body.outline, plan.body.thickness_mm, bed).fits
     assert [f.part for f in split_design.bed_fits] == ["hub half A", "hub half B"]
     assert all(f.fits for f in split_design.bed_fits)
+
+
+def _to_outline(p, outline) -> float:
+    """Distance from a point to a closed polygon's boundary (hand geometry)."""
+    best = math.inf
+    for (ax, ay), (bx, by) in zip(outline, outline[1:] + outline[:1]):
+        dx, dy = bx - ax, by - ay
+        t = max(0.0, min(1.0, ((p[0] - ax) * dx + (p[1] - ay) * dy) / (dx * dx + dy * dy)))
+        best = min(best, math.hypot(p[0] - ax - t * dx, p[1] - ay - t * dy))
+    return best
+
+
+def test_saw_line_on_top_and_bottom_runs_through_the_axis_to_the_outline(split_design):
+    """The block is drilled whole and sawn apart: the top and bottom templates carry the saw
+    line along the plane, from outline to outline through the mast axis, and a tick into half A."""
+    plan, sp = split_design.plan, split_design.plan.split
+    outline = list(plan.body.outline)
+    for face, z in (("top", plan.body.thickness_mm), ("bottom", 0.0)):
+        saw = [m for m in plan.marks if m.face == face and m.label.startswith("saw line")]
+        assert len(saw) == 1
+        a, b = saw[0].a, saw[0].b
+        assert a[2] == pytest.approx(z) and b[2] == pytest.approx(z)
+        for p in (a, b):
+            assert _to_outline(p, outline) < 0.01
+            assert p[0] * sp.normal[0] + p[1] * sp.normal[1] == pytest.approx(0.0, abs=1e-6)  # on the plane
+        assert (b[0] - a[0]) * sp.along[0] + (b[1] - a[1]) * sp.along[1] > 0
+        tick = next(m for m in plan.marks if m.face == face and m.label == "half A")
+        into = (tick.b[0] - tick.a[0]) * sp.normal[0] + (tick.b[1] - tick.a[1]) * sp.normal[1]
+        assert into < 0  # the normal points from half A into half B
+
+
+def test_the_mast_pin_crosses_the_split_through_the_bore(split_design):
+    """A pin across the mast meets the split plane only inside the bore: it is kept, and it is
+    not laid along the plane."""
+    plan, sp = split_design.plan, split_design.plan.split
+    pin = plan.hole("P1")
+    d = [pin.bottom_mm[i] - pin.entry_mm[i] for i in range(2)]
+    n = math.hypot(*d)
+    sin_angle = abs(d[0] * sp.normal[0] + d[1] * sp.normal[1]) / n
+    assert sin_angle > math.sin(math.radians(15))
+    # where the pin's cylinder meets the plane: within r / sin(angle) of the axis, inside the bore
+    assert pin.radius_mm / sin_angle < plan.bore_mm / 2
