@@ -93,8 +93,8 @@ def test_set_screw_length_chosen_from_stock_by_hand():
 
 @pytest.mark.parametrize("length, status", [(16, "fail"), (6, "warn")])
 def test_set_screw_too_long_or_too_short(length, status):
-    # 16 mm stands 2.9 mm proud; 6 mm leaves 6 - (13.10 - 12.59) = 5.5 mm in the thread, < 1 D
-    _, _, checks = checks_for(modified(set_screws={"length": length}))
+    # frozen metric case: 16 mm stands 2.9 mm proud; 6 mm leaves 6 - (13.10 - 12.59) = 5.5 mm in the thread, < 1 D
+    _, _, checks = checks_for(modified(METRIC_CASE, set_screws={"length": length}))
     r = rule(checks, "set-screw-length")
     assert r.status == status
     if status == "fail":
@@ -128,7 +128,7 @@ def test_socket_depth_for_bending_support(depth, status):
 
 
 def test_socket_tilt():
-    _, _, checks = checks_for(modified(spreaders={"elevation": "20 deg"}))
+    _, _, checks = checks_for(modified(METRIC_CASE, spreaders={"elevation": "20 deg"}))
     r = rule(checks, "socket-tilt")
     assert r.status == "fail" and r.value == pytest.approx(20.0)
     assert "spreaders.elevation" in r.message
@@ -160,13 +160,13 @@ def test_reducer_sleeve_wall():
 
 @pytest.mark.parametrize("limit, status", [(1000, "fail"), (1200, "warn"), (2000, "pass")])
 def test_mass_against_the_users_limit(limit, status):
-    _, _, checks = checks_for(modified(hub={"max_mass": limit}))
+    _, _, checks = checks_for(modified(METRIC_CASE, hub={"max_mass": limit}))
     assert rule(checks, "mass").status == status
 
 
 def test_mass_estimate_by_hand_for_a_plain_block():
     # a hexagon of across-flats s has area (sqrt 3 / 2) s^2 (plane geometry); minus the bore
-    data = modified(hub={"corner_chamfer": 0}, set_screws={"per_spreader": 0}, holes=[], mast_pin=None)
+    data = modified(METRIC_CASE, hub={"corner_chamfer": 0}, set_screws={"per_spreader": 0}, holes=[], mast_pin=None)
     cfg, plan, _ = checks_for(data)
     hexagon = math.sqrt(3) / 2 * 160 ** 2 * 46
     bore = math.pi * 25.5 ** 2 * 46

@@ -184,7 +184,8 @@ def test_material_between_neighbouring_sockets(probe):
         found = None
         for rho in np.arange(inner, inner + 30.0, 0.5):
             z_axis = (a.bottom[2] + (rho - inner) * math.tan(math.asin(-a.axis[2])))
-            for dz in (0.0, 1.0, -1.0, 2.0, -2.0, 4.0, -4.0, 6.0, -6.0):
+            # wide enough to pass a through bolt on the bisector (the web it crosses)
+            for dz in (0.0, 1.0, -1.0, 2.0, -2.0, 4.0, -4.0, 6.0, -6.0, 8.0, -8.0, 10.0, -10.0):
                 p = np.array([mid[0] * rho, mid[1] * rho, z_axis + dz])
                 if o.surely_material(p, 0.2):
                     found = p

@@ -47,13 +47,15 @@ def test_manifest_has_every_field_of_item_5(build_case, name):
     assert hub["mass_g"] == pytest.approx(hub["volume_mm3"] / 1000 * density, abs=0.1)
     for h in m["holes"]:
         assert set(h) >= HOLE_KEYS, f"{h['id']} lacks {HOLE_KEYS - set(h)}"
-        assert h["kind"] in {"bore", "socket", "set_screw", "clamp", "extra"}
+        assert h["kind"] in {"bore", "socket", "set_screw", "clamp", "pin", "extra"}
         assert math.isclose(np.linalg.norm(h["axis"]), 1.0, abs_tol=1e-6), f"{h['id']} axis not unit"
         assert h["diameter_mm"] > 0 and h["depth_mm"] > 0
         for key, fields in (("countersink", {"diameter_mm", "angle_deg"}), ("counterbore", {"diameter_mm", "depth_mm"})):
             assert h[key] is None or set(h[key]) >= fields
     ids = [h["id"] for h in m["holes"]]
     assert len(ids) == len(set(ids))
+    # a through bolt is drawn exactly when the config asks for one
+    assert any(h["kind"] == "pin" for h in m["holes"]) == (cfg.mast_pin is not None)
     for s in m["spreaders"]:
         assert set(s) >= {"id", "azimuth_deg", "elevation_deg", "socket_hole"}
         assert s["socket_hole"] in ids

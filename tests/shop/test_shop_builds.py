@@ -43,7 +43,7 @@ def test_manifest_lists_every_screw_and_tap_depth(built, name):
     cfg, _, m = built(name)
     mclass = get_material(cfg.hub.material).material_class
     holes = {h["id"]: h for h in m["holes"]}
-    screwed = {h["id"] for h in m["holes"] if h["kind"] in ("set_screw", "clamp")
+    screwed = {h["id"] for h in m["holes"] if h["kind"] in ("set_screw", "clamp", "pin")
                or (h["kind"] == "extra" and (h["thread"] or any(p.get("serves") == h["id"] for p in m["holes"])))}
     listed = {f["hole"]: f for f in m["fasteners"]}
     assert set(listed) == screwed

@@ -135,7 +135,7 @@ def test_stock_grid_ends_at_the_table():
     raw = tomllib.loads(HEX.read_text(encoding="utf-8"))
     dims = dimensions(load_config(HEX), raw, ["hub.thickness"], "stock")
     assert dims[0].series == plate_thicknesses_mm("mm")
-    assert dims[0].value(dims[0].start) == 50.0  # 46 mm rounds up to the next plate
+    assert dims[0].value(dims[0].start) == 55.0  # 51 mm rounds up to the next plate
     space = Space(raw, "mm", dims, None, "stock", False)
     off = space((len(dims[0].series),))
     assert not off.ok and off.refusal == "outside the grid"
