@@ -31,7 +31,9 @@ from generators.plan.shop import drill_series
 # ---- building a sheet -------------------------------------------------------------------
 
 def faces_with_holes(plan: HubPlan) -> list[Face]:
-    used = {h.face for h in plan.holes}
+    """Faces a hole enters, and the faces a through pin leaves by (marked there so a pin
+    too long for one drill can be drilled half from each face in line)."""
+    used = {h.face for h in plan.holes} | {h.exit_face for h in plan.holes if h.kind == "pin" and h.exit_face}
     return [f for f in plan.faces if f.id in used]
 
 

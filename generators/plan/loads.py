@@ -115,7 +115,7 @@ class WindResult:
     worst_spreader: int | None = None
     worst_wind_azimuth_deg: float | None = None
     solid_pole: bool = False
-    pressure_basis: str = "reference height: 10 m, open country"
+    pressure_basis: str = "1/2 rho V^2, V taken as the 10 m open-country reference speed, no height or terrain factor"
     root_moment_nm: float | None = None  # wind, wire and weight combined (plan/beam.py)
     root_shear_n: float | None = None
     set_screw_force_n: float | None = None  # clamp force of one set screw (torque, capped)
@@ -223,7 +223,7 @@ def design_pressure(cfg: Config) -> tuple[float, str]:
 
     ld = cfg.loads
     if ld.height is None:
-        return dynamic_pressure(ld.air_density, ld.wind_speed), "reference height: 10 m, open country"
+        return dynamic_pressure(ld.air_density, ld.wind_speed), "1/2 rho V^2, V taken as the 10 m open-country reference speed, no height or terrain factor"
     z = ld.height / 1000.0
     vb = wh.basic_velocity_from_gust(ld.wind_speed)
     qp = wh.peak_velocity_pressure(vb, z, ld.terrain, rho=ld.air_density)

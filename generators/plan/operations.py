@@ -15,7 +15,7 @@ from dataclasses import dataclass, replace
 from generators.plan.geometry import dot
 from generators.plan.kinds import POCKET_KINDS, HoleKind
 from generators.plan.model import Hole, HubPlan
-from generators.plan.pin_ops import match_drill_rows, pin_breaks_into, pin_why
+from generators.plan.pin_ops import exit_rows, match_drill_rows, pin_breaks_into, pin_why
 from generators.plan.shop import PILOT_ABOVE_MM, cutter_for, drill_label, needs_pilot, pilot_drill
 from generators.units import format_length
 
@@ -76,7 +76,11 @@ def faces_with_work(plan: HubPlan) -> list[str]:
 def plan_operations(plan: HubPlan, cfg, series: tuple[str, ...], material_class: str) -> tuple[Operation, ...]:
     """Every face's operations, faces in plan order, steps numbered per face from 1."""
     out: list[Operation] = []
-    for face_id in faces_with_work(plan):
+    faces = faces_with_work(plan)
+    if plan.process != "printed":  # a through pin's far face is marked and may be drilled from too
+        leaving = {h.exit_face for h in plan.holes if h.kind == HoleKind.PIN and h.exit_face}
+        faces = [f.id for f in plan.faces if f.id in set(faces) | leaving]
+    for face_id in faces:
         if plan.process == "printed":
             out += _Printed(plan, cfg, face_id).ops()
         else:
@@ -124,6 +128,30 @@ class _Face:
             return "runs into the bore"
         return pin_breaks_into(h)
 
+    def reach(self, drill_mm: float, h: Hole) -> str:
+        """What a drill this deep needs beyond a jobber drill (DIN 338 / 340 flutes, from memory)."""
+        from generators.standards.drill_lengths import flute_length_mm, series_reaching
+
+        length = h.depth_mm
+        jobber = flute_length_mm(drill_mm, "jobber")
+        if jobber is None or length <= jobber + 1e-9:
+            return ""
+        series = series_reaching(drill_mm, length)
+        if series == "long":
+            return (f"deeper than a jobber drill's {self.L(jobber)} of flute: use a long-series drill"
+                    f" ({self.L(flute_length_mm(drill_mm, 'long'))} of flute)")
+        longest = flute_length_mm(drill_mm, "long") or jobber
+        if h.through and length / 2 <= longest + 1e-9:
+            return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: drill half"
+                    " from each face with one")
+        ext = "(aircraft) drill (made 6 to 12 in / 150 to 300 mm long, from memory)"
+        if h.through:
+            return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: drill half"
+                    f" from each face, {self.L(length / 2)} each, with an extension {ext} reaching that"
+                    " far, pecking often")
+        return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: an extension"
+                f" {ext} reaching {self.L(length)} or more, pecking often")
+
 
 class _Machined(_Face):
     def __init__(self, plan, cfg, face_id, series, material_class):
@@ -139,8 +167,10 @@ class _Machined(_Face):
                  note=f"check the {first_bar} bar (and the {other_bar} bar) with a rule, then tape the template"
                       " on with its outline on the face's edges")
         tilted = [h for h in holes if tilts[h.id] > 0]
-        self.add("centre_punch", holes, "centre punch or centre drill", stage=STAGE_MARK,
-                 note="with the work already tilted for the tilted holes" if tilted else "")
+        from generators.plan.pin import exits_on
+
+        self.add("centre_punch", holes + exits_on(self.plan, self.face), "centre punch or centre drill",
+                 stage=STAGE_MARK, note="with the work already tilted for the tilted holes" if tilted else "")
         for stage in (STAGE_BORE, STAGE_SOCKETS, STAGE_HOLES):
             group = [h for h in holes if stage_of(h) == stage]
             if stage == STAGE_HOLES and group:
@@ -149,6 +179,7 @@ class _Machined(_Face):
                 self._cut_stage(group, stage, tilts)
         self._finish(holes)
         match_drill_rows(self, holes)
+        exit_rows(self)
 
     def _wait_for_sockets(self, holes: list[Hole]) -> None:
         """A hole that breaks into a socket drilled from another face waits for that socket:
@@ -207,34 +238,17 @@ class _Machined(_Face):
                 self.add("cut", hs, tool, h0.diameter_mm, depth, through, stage, tilt,
                          "; ".join(x for x in (f"{self.L(h0.diameter_mm)}", c0.note, extra) if x))
 
-    def reach(self, drill_mm: float, h: Hole) -> str:
-        """What a drill this deep needs beyond a jobber drill (DIN 338 / 340 flutes, from memory)."""
-        from generators.standards.drill_lengths import flute_length_mm, series_reaching
-
-        length = h.depth_mm
-        jobber = flute_length_mm(drill_mm, "jobber")
-        if jobber is None or length <= jobber + 1e-9:
-            return ""
-        series = series_reaching(drill_mm, length)
-        if series == "long":
-            return (f"deeper than a jobber drill's {self.L(jobber)} of flute: use a long-series drill"
-                    f" ({self.L(flute_length_mm(drill_mm, 'long'))} of flute)")
-        longest = flute_length_mm(drill_mm, "long") or jobber
-        if h.through and length / 2 <= longest + 1e-9:
-            return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: drill half"
-                    " from each face with one")
-        return (f"{self.L(length)} is past a long-series drill's {self.L(longest)} of flute: an extension"
-                " (aircraft) drill of 150 mm / 6 in or longer (from memory: common extra lengths), with"
-                " frequent pecking")
-
-    def tap_reach(self, thread: str, depth_mm: float) -> str:
+    def tap_reach(self, thread: str, depth_mm: float, run_on_mm: float = 0.0) -> str:
         """What a thread this deep needs beyond a hand tap (DIN 371 / ASME B94.9, from memory)."""
         from generators.standards.drill_lengths import hand_tap_reach_mm
 
         reach = hand_tap_reach_mm(thread)
-        if reach is None or depth_mm <= reach + 1e-9:
+        total = depth_mm + run_on_mm
+        if reach is None or total <= reach + 1e-9:
             return ""
-        return (f"{self.L(depth_mm)} is past a hand tap's reach of about {self.L(reach)} (its length"
+        where = (f"{self.L(total)} ({self.L(depth_mm)} and the {self.L(run_on_mm)} run-on)" if run_on_mm > 0
+                 else self.L(total))
+        return (f"{where} is past a hand tap's reach of about {self.L(reach)} (its length"
                 " less the square in the wrench): a tap extension or a long-shank (pulley) tap")
 
     def _cbore_note(self, h: Hole, dia: float, depth: float) -> str:
@@ -317,9 +331,8 @@ class _Machined(_Face):
                      " the face), through the clearance hole with a reduced-shank tap (DIN 376) or a pulley"
                      " tap, whose shank passes it (a DIN 371 tap's shank is about the thread's size)"
                      if start > 0 else "",
-                     self.tap_reach(thread, (depth if not through else max(h.depth_mm for h in hs))
-                                    + (RUN_ON_PITCHES * parse_thread(thread).pitch_mm
-                                       if self._tap_on(hs) else 0.0)),
+                     self.tap_reach(thread, depth if not through else max(h.depth_mm for h in hs),
+                                    RUN_ON_PITCHES * parse_thread(thread).pitch_mm if self._tap_on(hs) else 0.0),
                      "tap straight, back off every turn to break the chip"]
             self.add("tap", hs, f"{thread} tap", None, depth, through, STAGE_HOLES, None,
                      "; ".join(x for x in notes if x))

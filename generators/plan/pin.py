@@ -171,12 +171,33 @@ def _hole(p, mp, az, z, r, drill, dia, places) -> Hole:
     return Hole(id=PIN_ID, kind="pin", face=a[0], exit_face=b[0], entry_mm=entry,
                 axis=(-math.cos(t), -math.sin(t), 0.0), diameter_mm=dia, depth_mm=width, through=True,
                 drill=drill, lead_mm=L.CUT_OVERRUN_MM + sag(a[1]), extend_mm=L.CUT_OVERRUN_MM + sag(b[1]),
-                screw=pin_screw(bolt, width, p.fmt),
+                screw=pin_screw(bolt, width, p.fmt, p.cfg.hub.material, p.units),
                 note=f"through bolt across the hub and the mast at {az % 360:g} deg, out at {(az + 180) % 360:g} deg")
 
 
-def pin_screw(bolt, width_mm: float, fmt) -> Screw:
+def pin_torque_nm(bolt, hub_material: str, units: str = "mm") -> tuple[float, str]:
+    """The nut's tightening torque: the torque table's figure for the thread in this hub
+    material, or less where the washers would bear on the hub past half its bearing
+    strength (F = T / (K d), K = 0.2; a safety factor of 2, common practice)."""
+    from generators.standards.holding import K_CRUSH, default_torque_nm
+    from generators.standards.materials import get_material
+    from generators.standards.ubolts import plain_washer
+    from generators.units import format_length, format_stress
+
+    mat = get_material(hub_material)
+    table, _ = default_torque_nm(bolt.thread, mat.material_class)
+    w = plain_washer(bolt.thread)
+    area = math.pi / 4 * (w.outside_mm ** 2 - w.inside_mm ** 2)
+    bearing = K_CRUSH * (mat.bearing_mpa * area / 2) * bolt.thread.major_mm / 1000
+    if bearing < table:
+        return bearing, (f"the {format_length(w.outside_mm, units, fractions=False)} washer on the {mat.name}"
+                         f" at half its {format_stress(mat.bearing_mpa, units)} bearing strength")
+    return table, "the torque table's figure for the thread"
+
+
+def pin_screw(bolt, width_mm: float, fmt, hub_material: str, units: str) -> Screw:
     """The fastener list's entry for the through bolt or rod."""
+    from generators.plan.screws import torque_text
     from generators.units import format_length
 
     t = bolt.thread
@@ -189,9 +210,11 @@ def pin_screw(bolt, width_mm: float, fmt) -> Screw:
         designation = f"{t.designation} threaded rod, cut to {length}"
         how = (f"a washer and a nut at each end, two pitches past each nut; {fmt(width_mm)} of hub"
                " (no stock hex bolt that long)")
-    note = (f"{bolt.grade}; with {' and '.join(bolt.with_parts)}; {how}; through the hub and the mast"
-            " drilled in place; snug the nut against the washer without crushing the hub, then lock it"
-            " (a second nut or thread-locking compound, common practice)")
+    torque, why = pin_torque_nm(bolt, hub_material, units)
+    note = (f"{bolt.grade}, zinc-plated or galvanised (or A2-70 stainless: bearing on the hub governs,"
+            f" not the bolt) outdoors; with {' and '.join(bolt.with_parts)}; {how}; through the hub and the"
+            f" mast drilled in place; tighten the nut to {torque_text(torque, units)} ({why}), then lock it"
+            " with thread-locking compound (common practice)")
     return Screw(designation=designation, kind=bolt.kind, thread=t.designation, length_mm=bolt.length_mm,
                  standard=f"{bolt.standard}; nuts {bolt.nut_standard}; washers {bolt.washer_standard}", note=note)
 

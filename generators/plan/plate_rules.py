@@ -61,7 +61,7 @@ class PlateWind:
     solid_pole: bool = False
     sf_plate: float | None = None
     sf_legs: float | None = None
-    pressure_basis: str = "reference height: 10 m, open country"
+    pressure_basis: str = "1/2 rho V^2, V taken as the 10 m open-country reference speed, no height or terrain factor"
     spreader_allowable_mpa: float | None = None
     brittle: bool = False
     mast: object | None = None  # mast_loads.MastLoads

@@ -12,9 +12,15 @@ from generators.plan.model import Hole, HubPlan
 from generators.plan.screws import clamp_screw, set_screw, tapped_extra_screw
 
 
-def _span(h: Hole, pocket: Hole) -> tuple[float, float]:
-    """Where along ``h`` the nut or insert holds the screw's thread."""
+def thread_span(h: Hole, pocket: Hole) -> tuple[float, float]:
+    """Where along ``h`` the nut or insert holds the screw's thread: an insert over its
+    depth; a nut over its own height (ISO 4032 / ASME B18.2.2), not the pocket's, at the
+    pocket's face end, where a tightened screw pulls it."""
     t0 = sum((pocket.entry_mm[i] - h.entry_mm[i]) * h.axis[i] for i in range(3))
+    if pocket.kind == HoleKind.NUT_POCKET:
+        from generators.standards.fasteners import hex_nut
+
+        return t0, t0 + min(pocket.depth_mm, hex_nut(pocket.thread).height_mm)
     return t0, t0 + pocket.depth_mm
 
 
@@ -31,7 +37,7 @@ def printed_screws(machined: HubPlan, cfg, holes: list[Hole], pockets: list[Hole
             out.append(h)
             continue
         orig = machined.hole(h.id)
-        start, end = _span(h, pocket)
+        start, end = thread_span(h, pocket)
         nut = pocket.kind == HoleKind.NUT_POCKET
         if h.kind == HoleKind.SET_SCREW:
             sock = next(s for s in machined.holes if s.kind == HoleKind.SOCKET and s.spreader == h.spreader)
@@ -53,7 +59,7 @@ def printed_screws(machined: HubPlan, cfg, holes: list[Hole], pockets: list[Hole
             screw, _ = clamp_screw(orig.thread, orig.depth_mm, machined.bore_mm - machined.mast_od_mm,
                                    start, end, cfg.units, fmt, torque_nm=torque)
         else:
-            screw = tapped_extra_screw(orig.thread, end - start, fmt)
+            screw = tapped_extra_screw(orig.thread, end - start, fmt, start, None if orig.through else orig.depth_mm)
         if nut:
             screw = replace(screw, designation=screw.designation + " + hex nut",
                             note=screw.note + "; runs through the captive nut")

@@ -131,8 +131,15 @@ def sleeve_clamp_length(thread: str, reach_mm: float, counterbore_mm: float, fmt
     return min(longer), f"{thread} x {fmt(min(longer))}"
 
 
-def tapped_extra_screw(thread: str, engaged_mm: float, fmt) -> Screw:
-    """A screw into a tapped extra hole: its length depends on what it holds."""
+def tapped_extra_screw(thread: str, engaged_mm: float, fmt, start_mm: float = 0.0,
+                       depth_mm: float | None = None) -> Screw:
+    """A screw into a tapped extra hole (or a nut or insert ``start_mm`` down the hole):
+    its length depends on what it holds."""
+    if start_mm > 1e-6:
+        far = f", no more than plus {fmt(depth_mm)} (the hole's depth)" if depth_mm else ""
+        note = (f"length: what it holds plus at least {fmt(start_mm + engaged_mm)}, to pass through the"
+                f" {fmt(engaged_mm)} of thread {fmt(start_mm)} down the hole{far}")
+    else:
+        note = f"length: what it holds plus up to {fmt(engaged_mm)} of thread"
     return Screw(designation=f"{thread} screw", kind="screw", thread=thread, length_mm=None,
-                 standard="machine or cap screw",
-                 note=f"length: what it holds plus up to {fmt(engaged_mm)} of thread")
+                 standard="machine or cap screw", note=note)

@@ -137,9 +137,32 @@ def large_hole_tool(diameter_mm: float, depth_mm: float, through: bool, material
                     " after a pilot")
         return "a boring head on a mill, or a lathe, after a pilot drill; flat bottom" if not through \
             else "a boring head on a mill, or a lathe, after a pilot drill"
+    bit = forstner_words(diameter_mm, units)
     if through and depth_mm <= HOLE_SAW_DEPTH_MM:
-        return "a Forstner bit or a hole saw (its pilot in the centre mark), or a boring head"
+        return f"{bit}, or a hole saw (its pilot in the centre mark) and a boring head to size"
     if through:
-        return "a Forstner bit (drill from both faces if it does not reach), or a boring head or lathe"
-    return ("a Forstner bit of the size (on a bit extension if it does not reach; flat bottom), or a"
-            " boring head on a mill")
+        return f"{bit} (drill from both faces if it does not reach), or a boring head or lathe"
+    return f"{bit} (on a bit extension if it does not reach; flat bottom), or a boring head on a mill"
+
+
+# Forstner bits are sold in 1/16 in steps in inch sets and 1 mm steps in metric ones
+# (common practice, from memory; some sets skip sizes).
+FORSTNER_STEP_MM = {"in": 25.4 / 16, "mm": 1.0}
+
+
+def forstner_words(diameter_mm: float, units: str) -> str:
+    """The Forstner bit for a hole: the size itself when one is made, else the sizes either side."""
+    import math
+
+    from generators.units import format_length
+
+    step = FORSTNER_STEP_MM["in" if units == "in" else "mm"]
+    L = lambda mm: format_length(mm, units)  # noqa: E731  fractions for inch bits
+    n = diameter_mm / step
+    if abs(n - round(n)) * step <= MATCH_MM:
+        return f"a {L(round(n) * step)} Forstner bit"
+    under, over = math.floor(n) * step, math.ceil(n) * step
+    exact = format_length(diameter_mm, units, fractions=False)
+    return (f"a {L(under)} Forstner bit opened to {exact} with a boring head ({exact} is not a common"
+            f" Forstner size; the next, {L(over)}, is {format_length(over - diameter_mm, units, fractions=False)}"
+            " over)")

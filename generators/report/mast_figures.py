@@ -9,8 +9,9 @@ from generators.units import format_force
 ADVICE = ("Compare these with the mast maker's rating for a top load (force and its height), the"
           " rotator's turning and braking torque, and the clamp or thrust bearing's rating; add the"
           " mast's own wind load and follow local codes and licensed engineering practice. A tip"
-          " deflection over a tenth of the spreader's length is past the small-deflection theory:"
-          " read it as a pole that bends a lot. An estimate, not a certification.")
+          " deflection over a tenth of the spreader's length is past the small-deflection theory the"
+          " stresses and safety factors also rest on: read it as a pole that bends a lot, and the"
+          " figures as rough. An estimate, not a certification.")
 
 
 def _force(n: float, units: str) -> str:
@@ -29,8 +30,10 @@ def mast_rows(w: dict, units: str) -> list[list[str]]:
     defl = (f"{w['tip_deflection_mm'] / 25.4:.1f} in ({w['tip_deflection_mm']:.0f} mm)" if inch
             else f"{w['tip_deflection_mm']:.0f} mm")
     return [["wind area, worst direction (spreaders, wires, hub)", area],
-            ["horizontal force on the mast top", _force(w["mast_force_n"], units)],
-            ["torque about the mast from an uneven gust (ASCE 7-16 fig. 27.3-8 case 2)", torque],
+            ["horizontal force on the mast top (each member's cross-flow part, sin^2 of its angle to the"
+             " wind, so less than pressure x area x drag)", _force(w["mast_force_n"], units)],
+            ["torque about the mast from an uneven gust: 0.75 F x 0.15 B, B the span across the wind"
+             " (ASCE 7-16 fig. 27.3-8 case 2, a load case for buildings taken as an assumption)", torque],
             ["weight of the antenna (poles, wires, hub)", _force(w["weight_n"], units)],
             ["weight of the ice", _force(w["ice_weight_n"], units)],
             ["spreader tip deflection in the design wind", defl]]

@@ -262,8 +262,10 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
 
     md.add("## Checks", "",
            "Design rules run on the plan before anything was written (`hubwright check` prints the"
-           " same table). pass = at or above the recommended figure; warn = below it but above the"
-           " minimum; fail = below the minimum (the build stops unless --force).", "")
+           " same table). pass = on the safe side of the recommended figure (at or above it for a wall,"
+           " an engagement or a safety factor; at or under it for a screw length or an angle); warn ="
+           " past it but within the minimum; fail = past the minimum (the build stops unless --force);"
+           " a rule that cannot apply, or has nothing to estimate, passes with a dash.", "")
     from generators.report.figures import figure
 
     rows = [[r.id, r.status.upper() if r.status != "pass" else r.status, figure(r.value, r.unit, units),

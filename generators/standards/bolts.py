@@ -30,6 +30,23 @@ _INCH_LENGTHS = tuple([0.5, 0.625, 0.75, 0.875] + [1 + k / 4 for k in range(21)]
 UTS_METRIC_MPA = 800.0
 UTS_INCH_MPA = 120.0 * 6.894757293168  # 1 ksi = 6.894757 MPa (NIST SP 811)
 GRADE_METRIC, GRADE_INCH = "property class 8.8 (ISO 898-1)", "SAE J429 grade 5"
+# Yield strength: class 8.8 ReL 640 MPa (ISO 898-1 nominal), grade 5 92 ksi (SAE J429); from memory.
+YIELD_METRIC_MPA = 640.0
+YIELD_INCH_MPA = 92.0 * 6.894757293168
+
+
+def yield_mpa(thread: Thread) -> float:
+    """The bolt's yield strength (see YIELD_METRIC_MPA)."""
+    return YIELD_INCH_MPA if thread.inch else YIELD_METRIC_MPA
+
+
+def bending_capacity_nm(thread: Thread) -> float:
+    """First yield in bending on the stress-area section: f_y pi d_s^3 / 32 (Gere, elastic
+    section modulus of a round bar), N m."""
+    from generators.standards.ubolts import stress_area_mm2
+
+    d_s = math.sqrt(4 * stress_area_mm2(thread) / math.pi)
+    return yield_mpa(thread) * math.pi * d_s ** 3 / 32 / 1000.0
 UTS_SOURCE = ("ISO 898-1 property class 8.8: Rm 800 MPa; SAE J429 grade 5: 120 ksi (from memory)")
 # Shear strength of a bolt as a fraction of its tensile strength on the stress area:
 # alpha_v = 0.6 for class 8.8 with the shear plane through the thread (EN 1993-1-8 table 3.4,

@@ -97,12 +97,21 @@ def to_page_pt(page_rec: dict, uv) -> tuple[float, float]:
     return ((bx0 + uv[0] - u0) * PT, (h - (by0 + uv[1] - v0)) * PT)
 
 
+def marked(manifest) -> list[dict]:
+    """Every hole a template marks: the holes by their entry face, and a through pin's far
+    end on the face it leaves by (``P1-exit``, at the entry point plus the depth along the axis)."""
+    exits = [dict(h, id=f"{h['id']}-exit", face=h["exit_face"], thread=None,
+                  entry_mm=[e + a * h["depth_mm"] for e, a in zip(h["entry_mm"], h["axis"])])
+             for h in manifest["holes"] if h["kind"] == "pin" and h.get("exit_face")]
+    return manifest["holes"] + exits
+
+
 # ---- DXF ------------------------------------------------------------------------------
 
 @pytest.mark.parametrize("name", NAMES)
 def test_a_sheet_for_every_face_with_holes(templates, name):
     t = templates(name)
-    faces = {h["face"] for h in t.manifest["holes"]}
+    faces = {h["face"] for h in marked(t.manifest)}
     assert {s["face"] for s in t.manifest["templates"]} == faces
     for s in t.manifest["templates"]:
         assert (t.folder / s["file"]).is_file()
@@ -127,7 +136,7 @@ def test_dxf_every_hole_once_at_its_position_and_drilled_diameter(templates, nam
         on_layer = list(msp.query(f'*[layer=="{S.HOLES}"]'))
         assert {e.dxftype() for e in on_layer} <= {"CIRCLE"}, "only hole circles on the hole layer"
         found = [((e.dxf.center.x * k, e.dxf.center.y * k), e.dxf.radius * 2 * k) for e in on_layer]
-        holes = [h for h in t.manifest["holes"] if h["face"] == s["face"]]
+        holes = [h for h in marked(t.manifest) if h["face"] == s["face"]]
         assert len(found) == len(holes)
         for h in holes:
             u, v = expected_uv(s, h["entry_mm"])
@@ -143,7 +152,7 @@ def test_dxf_hole_table_and_scale_bars(templates, name):
         msp = ezdxf.readfile(t.folder / s["file"]).modelspace()
         k = dxf_scale(s)
         cells = {e.dxf.text for e in msp.query(f'TEXT[layer=="{S.HOLE_TABLE}"]')}
-        for h in (h for h in t.manifest["holes"] if h["face"] == s["face"]):
+        for h in (h for h in marked(t.manifest) if h["face"] == s["face"]):
             assert h["id"] in cells
             if h["thread"]:
                 assert h["thread"] in cells
@@ -190,7 +199,7 @@ def test_pdf_pages_paper_bars_and_print_note(templates, name):
 def test_pdf_holes_at_scale_and_spacing(templates, name):
     t = templates(name)
     doc = pymupdf.open(t.pdf)
-    holes = {h["id"]: h for h in t.manifest["holes"]}
+    holes = {h["id"]: h for h in marked(t.manifest)}
     shown_whole: set[str] = set()  # holes whose centre mark is printed whole somewhere
     for rec in t.pages():
         if rec["content"] != "template":
@@ -316,7 +325,7 @@ def test_drilling_order_metric_and_counterbore(templates):
     assert "Drill 5.1 mm: T1, T2, T3, T4, T5, T6" in text and "Tap M6x1" in text and "Tap M5x0.8: FP1, FP2" in text
     assert "Pilot 6.5 mm: S1" in info_text(t, "flat-1")
     # 51 mm is past the 32 mm metric set: cut, not drilled; 20.5 mm is a stock drill
-    assert "Cut 51 mm with a Forstner bit" in text and "bore, through (larger than the stock drills; mast bore)" in text
+    assert "Cut 51 mm with a 51 mm Forstner bit" in text and "bore, through (larger than the stock drills; mast bore)" in text
     assert "Drill 20.5 mm: S1" in info_text(t, "flat-1")
     oct_ = templates("oct-block-inch")
     bottom = info_text(oct_, "bottom")

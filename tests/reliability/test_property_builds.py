@@ -69,22 +69,25 @@ def drawing_mismatches(folder, manifest) -> list[str]:
     from tests.drawings.test_templates import expected_uv
 
     bad = []
-    by_id = {h["id"]: h for h in manifest["holes"]}
-    faces_with_holes = {h["face"] for h in manifest["holes"]}
+    # a through pin is marked where it leaves as well (drilled half from each face in line)
+    exits = [dict(h, id=f"{h['id']}-exit", face=h["exit_face"],
+                  entry_mm=[e + a * h["depth_mm"] for e, a in zip(h["entry_mm"], h["axis"])])
+             for h in manifest["holes"] if h["kind"] == "pin" and h.get("exit_face")]
+    faces_with_holes = {h["face"] for h in manifest["holes"] + exits}
     drawn = {rec["face"] for rec in manifest.get("templates", [])}
     if manifest["hub"]["process"] == "machined" and drawn != faces_with_holes:
         bad.append(f"faces drawn {sorted(drawn)} != faces with holes {sorted(faces_with_holes)}")
     for rec in manifest.get("templates", []):
         k = 25.4 if rec["dxf_units"] == "in" else 1.0
         circles = [e for e in ezdxf.readfile(folder / rec["file"]).modelspace() if e.dxf.layer == HOLES]
-        on_face = [h for h in manifest["holes"] if h["face"] == rec["face"]]
+        on_face = [h for h in manifest["holes"] + exits if h["face"] == rec["face"]]
         if len(circles) != len(on_face):
             bad.append(f"{rec['face']}: {len(circles)} circles for {len(on_face)} holes")
         for h in on_face:
             hid = h["id"]
             u, v = expected_uv(rec, h["entry_mm"])  # from the frame and the 3D entry point alone
             hits = [c for c in circles if abs(c.dxf.center.x * k - u) < 0.01 and abs(c.dxf.center.y * k - v) < 0.01
-                    and abs(2 * c.dxf.radius * k - by_id[hid]["diameter_mm"]) < 0.01]
+                    and abs(2 * c.dxf.radius * k - h["diameter_mm"]) < 0.01]
             if len(hits) != 1:
                 bad.append(f"{rec['face']}:{hid}")
     return bad

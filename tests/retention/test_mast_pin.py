@@ -298,3 +298,32 @@ def test_the_solid_has_a_void_along_the_pin(tmp_path):
         assert solid.isInside(q, 1e-3), f"no material beside the pin {t} mm in"
         checked += 1
     assert checked > 20
+
+
+def test_bending_across_a_sleeve_gap_by_hand():
+    """A pin through a reducer sleeve spans the sleeve's wall: a cantilever M = F g from the
+    mast wall to the bore wall (Gere, elastic section modulus pi d_s^3 / 32 of the stress-area
+    diameter; class 8.8 yield 640 MPa, ISO 898-1, from memory)."""
+    from generators.plan.rules.pin_hold import pin_hold
+    from generators.standards.threads import parse_thread
+
+    d = planned(mast_pin={"thread": "M10"})
+    a_s = 58.0                                     # M10, ISO 898-1 table
+    d_s = math.sqrt(4 * a_s / math.pi)             # 8.594 mm
+    m_y = 640.0 * math.pi * d_s ** 3 / 32 / 1000   # 39.9 N m at first yield
+    mast_od = 33.4                                 # NPS 1, ASME B36.10M
+    gap = (d.plan.bore_mm - mast_od) / 2
+    hold = pin_hold(parse_thread("M10"), d.plan.hole("P1"), d.plan.bore_mm, 1000.0, mast_od / 2, gap)
+    assert hold.limits["bolt bending across the gap"] == pytest.approx(m_y * 1000 / gap, rel=3e-3)
+    assert hold.governs == "bolt bending across the gap"   # bearing 1000 MPa: the bolt decides
+    assert hold.torque_nm == pytest.approx(2 * m_y * 1000 / gap * mast_od / 2 / 1000, rel=3e-3)
+
+
+def test_a_sleeve_mast_decides_when_it_is_weaker():
+    # the sleeves demo: the 1 NPS sleeve's mast (r = 16.7 mm) holds less turning than the hub's own mast
+    from generators.config.load import load_config
+
+    root = HERE.parents[1]
+    des = design(load_config(root / "configs" / "six-spreader-sleeves.toml"))
+    r = next(x for x in des.checks.rules if x.id == "mast-retention")
+    assert "1 NPS" in r.message and "r = 16.7 mm" in r.message

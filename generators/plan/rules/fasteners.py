@@ -51,13 +51,15 @@ class FastenerRules(RulesBase):
             e = self._elev(sock)
             # the pole pushed onto the far side of its socket by the screw
             pole = next(p.diameter_mm for p in self.plan.spreaders if p.id == h.spreader)
-            gap_to_pole = h.depth_mm - (pole - sock.radius_mm) / math.cos(e)
+            r_true = sock.radius_mm - sock.compensation_mm / 2  # a printed socket as it prints, not as modelled
+            gap_to_pole = h.depth_mm - (pole - r_true) / math.cos(e)
             pocket = None if h.thread else self._pocket(h)
             if h.tapped is not None:
                 start, end = h.tapped.start_mm, h.tapped.end_mm
             elif pocket is not None:
-                start = sum((pocket.entry_mm[i] - h.entry_mm[i]) * h.axis[i] for i in range(3))
-                end = start + pocket.depth_mm
+                from generators.plan.printed_screws import thread_span
+
+                start, end = thread_span(h, pocket)
             else:
                 continue
             thread, length = h.screw.thread, h.screw.length_mm

@@ -94,7 +94,9 @@ class WallRules(RulesBase):
         other = f"the {w.b[5:]} face" if w.b.startswith("face:") else w.b
         msg = f"{w.a} to {other}: {self.fmt(w.mm)} of material{self._profile_note(w.a, w.b)}"
         if status != PASS:
-            msg += (f"; want at least {self.fmt(rec)} (minimum {self.fmt(self.min_wall)}): move the hole,"
+            pin = "pin" in (self._kind(w.a), self._kind(w.b))
+            move = "a mast_pin.height above or below the sockets" if pin else "move the hole"
+            msg += (f"; want at least {self.fmt(rec)} (minimum {self.fmt(self.min_wall)}): {move},"
                     " a smaller thread or a larger or thicker hub")
         return RuleResult("hole-wall", status, w.mm, limit, "mm", msg, self._src())
 
