@@ -186,21 +186,23 @@ def _fraction_text(inches: float, denominator: int = 64) -> str | None:
 
 def format_length(mm: float, units: str = "mm", fractions: bool = True) -> str:
     """Show a length as a shop person writes it: ``"38.1 mm"``, ``"1-1/2 in"``, ``"0.201 in"``."""
+    mm = 0.0 if abs(mm) < 5e-4 else mm  # no "-0 mm" from rounding noise
     if units == "in":
         inches = mm / MM_PER_IN
         text = _fraction_text(inches) if fractions else None
         if text is None:
             text = f"{inches:.3f}"
-        return f"{text} in"
+        return f"{text.replace('-0.000', '0.000')} in"
     text = f"{mm:.2f}".rstrip("0").rstrip(".")
-    return f"{text} mm"
+    return f"{'0' if text == '-0' else text} mm"
 
 
 def format_both(mm: float, units: str = "mm") -> str:
     """Length in the config's units with the other system in brackets."""
+    mm = 0.0 if abs(mm) < 5e-4 else mm
     if units == "in":
-        return f"{format_length(mm, 'in')} ({mm:.2f} mm)"
-    return f"{format_length(mm, 'mm')} ({mm / MM_PER_IN:.3f} in)"
+        return f"{format_length(mm, 'in')} ({mm:.2f} mm)".replace("(-0.00 mm)", "(0.00 mm)")
+    return f"{format_length(mm, 'mm')} ({mm / MM_PER_IN:.3f} in)".replace("(-0.000 in)", "(0.000 in)")
 
 
 # Loads in the user's units; exact by definition: 1 lbf = 4.4482216152605 N, 1 ft = 0.3048 m,

@@ -120,6 +120,11 @@ def _user_error(exc: ValidationError, units: str) -> UserError:
         return UserError(_key(loc), "nan is not a number", "a finite number")
     if isinstance(value, float) and value in (float("inf"), float("-inf")):
         return UserError(_key(loc), f"{value} is not a finite number", "a finite number")
+    if kind in ("model_type", "model_attributes_type", "dict_type"):
+        owner = _model_at(loc + ("?",))  # the model the table itself should be
+        keys = ", ".join(owner.model_fields) if owner else "its keys"
+        table = f"a [{_key(loc)}] table" if not (loc and isinstance(loc[-1], int)) else "a table"
+        return UserError(_key(loc), f"{value!r} is not a table", f"{table} with keys {keys}")
     if kind in ("tuple_type", "list_type"):
         return UserError(_key(loc), f"{value!r} is not a list", "a TOML list, e.g. [45, 135]")
     if kind == "int_from_float":

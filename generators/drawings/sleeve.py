@@ -31,7 +31,7 @@ def write_sleeve_templates(ctx) -> None:
         dxfs = []
         for sheet in sheets:
             dxf = folder / f"{s.stem}-{sheet.name}.dxf"
-            write_sheet_dxf(sheet, dxf, f"{plan.name}: sleeve {sheet.name} template, 1:1 in {cfg.units}")
+            write_sheet_dxf(sheet, dxf, f"{plan.name}: sleeve {sheet.name} template, 1:1, {'inches' if cfg.units == 'in' else 'millimetres'}")
             dxfs.append({"face": sheet.face.id, "file": f"{FOLDER}/{dxf.name}",
                          "holes": {hid: [round(u, 6), round(v, 6)] for hid, (u, v) in sheet.positions.items()}})
         pages = P.layout(sheets, paper_for(cfg))

@@ -55,7 +55,7 @@ def write_template_dxf(ctx) -> None:
     records = []
     for sheet in sheets:
         dxf = folder / f"{sheet.name}.dxf"
-        write_sheet_dxf(sheet, dxf, f"{plan.name}: {sheet.name} template, 1:1 in {cfg.units}")
+        write_sheet_dxf(sheet, dxf, f"{plan.name}: {sheet.name} template, 1:1, {'inches' if cfg.units == 'in' else 'millimetres'}")
         records.append({
             "face": sheet.face.id,
             "file": f"{FOLDER}/{dxf.name}",

@@ -68,6 +68,11 @@ def _edges(cfg: Config, plan: HubPlan, fmt) -> None:
             d = free_edge_distance(plan, face, face.to_face(at)) - r
             need = max(L.EDGE_FACTOR * 2 * r, L.MIN_EDGE_MM)
             if d < need - 1e-9:
+                if h.kind == "pin" and min(at[2], plan.body.thickness_mm - at[2]) - r < need - 1e-9:
+                    lo, hi = r + need, plan.body.thickness_mm - r - need
+                    raise UserError("mast_pin.height", f"the rim of pin {h.id} is {fmt(max(d, 0))} from the"
+                                    f" {'bottom' if at[2] < plan.body.thickness_mm / 2 else 'top'} edge of the"
+                                    f" {face_id} face", f"{fmt(lo)} to {fmt(hi)} above the bottom face")
                 raise UserError(_key(cfg, plan, h, None, f"face:{face_id}"), f"the rim of {h.kind.replace('_', ' ')}"
                                 f" {h.id} is {fmt(max(d, 0))} from an edge of the {face_id} face",
                                 f"at least {fmt(need)} (half the hole diameter, common practice)")

@@ -170,6 +170,11 @@ class FastenerHoles:
             if mc.count > len(free):
                 raise UserError("mast_clamp.count", f"{mc.count} clamp holes but only {len(free)} flats or"
                                 " chamfers between sockets", f"1 to {len(free)}")
+            pin = self.cfg.mast_pin
+            if pin is not None and pin.azimuth is not None:  # keep the given pin's two ends free
+                ends = (pin.azimuth % 360, (pin.azimuth + 180) % 360)
+                kept = {a: f for a, f in free.items() if min(_apart(a, e) for e in ends) > 1e-6}
+                free = kept if len(kept) >= mc.count else free
             first = (self.cfg.spreaders.first_azimuth + 180 / self.N) % 360
             chosen, note = choose_azimuths(sorted(free), mc.count, first)
             if note:

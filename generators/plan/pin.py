@@ -96,10 +96,15 @@ def _fix(p, places) -> str:
 def _height(p, mp, r: float, drill) -> float:
     mc = p.cfg.mast_clamp
     z = mp.height if mp.height is not None else (mc.height if mc is not None and mc.height is not None else p.T / 2)
-    lo, hi = r + L.MIN_EDGE_MM, p.T - r - L.MIN_EDGE_MM
+    from generators.plan.hard_limits import wall_limit_mm
+
+    # the hard limits the finished plan is held to: the rim half a diameter from a face's
+    # edge (plan/hard_limits.py) and the web minimum to the top and bottom faces
+    margin = max(L.EDGE_FACTOR * 2 * r, L.MIN_EDGE_MM, wall_limit_mm(p.cfg))
+    lo, hi = r + margin, p.T - r - margin
     if not (lo - 1e-9 <= z <= hi + 1e-9):
-        raise UserError("mast_pin.height", f"{p.fmt(z)} puts the {drill or p.fmt(2 * r)} pin hole through the"
-                        " top or bottom face", f"{p.fmt(lo)} to {p.fmt(hi)} above the bottom face")
+        raise UserError("mast_pin.height", f"{p.fmt(z)} puts the {drill or p.fmt(2 * r)} pin hole through or too"
+                        " near the top or bottom face", f"{p.fmt(lo)} to {p.fmt(hi)} above the bottom face")
     return z
 
 

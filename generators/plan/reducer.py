@@ -174,20 +174,25 @@ def plan_sleeve(cfg: Config, plan: HubPlan, spec: Reducer, key: str = "reducers[
         raise UserError(f"{base}.length", f"{fmt(length)} is longer than the hub is thick",
                         f"at most {fmt(plan.body.thickness_mm)} (the default)")
     clamps = [h for h in plan.holes if h.kind == "clamp"]
-    for h in clamps:
+    pins = [h for h in plan.holes if h.kind == "pin"]  # drilled through the sleeve in place
+    for h in clamps + pins:
         if h.entry_mm[2] + h.radius_mm + L.MIN_EDGE_MM > length:
-            raise UserError(f"{base}.length", f"a {fmt(length)} sleeve stops below the hub's clamp hole"
+            what = "pin" if h.kind == "pin" else "clamp"
+            raise UserError(f"{base}.length", f"a {fmt(length)} sleeve stops below the hub's {what} hole"
                             f" {h.id}", f"at least {fmt(h.entry_mm[2] + h.radius_mm + L.MIN_EDGE_MM)}")
     clamp_az = [math.degrees(math.atan2(h.entry_mm[1], h.entry_mm[0])) for h in clamps]
+    pin_az = [math.degrees(math.atan2(h.entry_mm[1], h.entry_mm[0])) + k * 180.0 for h in pins for k in (0, 1)]
     notes: list[str] = []
 
-    # the flat faces the first clamp screw, or the first gap between sockets
-    face_az = clamp_az[0] if clamp_az else cfg.spreaders.first_azimuth + 180.0 / cfg.spreaders.count
+    # the flat faces the first clamp screw, or the first gap between sockets clear of the pin
+    gaps = [cfg.spreaders.first_azimuth + (k + 0.5) * 360.0 / cfg.spreaders.count for k in range(cfg.spreaders.count)]
+    clear = [g for g in gaps if all(_angle_between(g, a) > 1.0 for a in pin_az)] or gaps
+    face_az = clamp_az[0] if clamp_az else clear[0]
     flange = _flange(plan, od, base, fmt) if spec.flange else None
     slit = None
     if spec.slit:
         width = max(MIN_SLIT_MM, math.pi * clearance + SLIT_EXTRA_MM)
-        slit = Slit(azimuth_deg=_slit_azimuth(cfg, clamp_az or [face_az], base), width_mm=width)
+        slit = Slit(azimuth_deg=_slit_azimuth(cfg, (clamp_az or [face_az]) + pin_az, base), width_mm=width)
     key_flat = None
     if spec.key:
         az = face_az
@@ -251,8 +256,8 @@ def _slit_azimuth(cfg: Config, clamp_az: list[float], base: str) -> float:
     gaps = [cfg.spreaders.first_azimuth + (k + 0.5) * 360.0 / n for k in range(n)]
     free = [g for g in gaps if all(_angle_between(g, c) > 1e-6 for c in clamp_az)]
     if not free:
-        raise UserError(f"{base}.slit", "every gap between sockets has a clamp screw, so the slit has"
-                        " nowhere to go", "slit = false, or fewer mast_clamp.count")
+        raise UserError(f"{base}.slit", "every gap between sockets has a clamp screw or an end of the"
+                        " through bolt, so the slit has nowhere to go", "slit = false, or fewer mast_clamp.count")
     return max(free, key=lambda g: min(_angle_between(g, c) for c in clamp_az))
 
 

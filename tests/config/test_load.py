@@ -59,6 +59,8 @@ def test_mast_designation_resolves():
      "holes", "used twice"),
     (cfg(holes=[{"id": "A", "at": [50, 0]}]), "holes[0].thread", "exactly one"),
     (cfg(name="../escape"), "name", "output folder"),
+    (cfg(mast_pin="M8"), "mast_pin", "a [mast_pin] table with keys thread, height, azimuth"),
+    (cfg(holes=["A"]), "holes[0]", "a table with keys id, face, at"),
 ])
 def test_bad_input_is_one_line_naming_the_key(data, key, words):
     with pytest.raises(UserError) as exc:

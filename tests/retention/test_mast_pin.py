@@ -327,3 +327,44 @@ def test_a_sleeve_mast_decides_when_it_is_weaker():
     des = design(load_config(root / "configs" / "six-spreader-sleeves.toml"))
     r = next(x for x in des.checks.rules if x.id == "mast-retention")
     assert "1 NPS" in r.message and "r = 16.7 mm" in r.message
+
+
+def test_a_sleeve_too_short_for_the_pin_is_refused():
+    # the sleeves demo's pin runs 34 mm above the bottom face; a 20 mm sleeve would leave the
+    # bolt crossing an air gap over it: refused, naming the sleeve's length
+    root = HERE.parents[1]
+    raw = tomllib.loads((root / "configs" / "six-spreader-sleeves.toml").read_text(encoding="utf-8"))
+    raw["reducers"][1]["length"] = 20
+    raw.pop("mast_clamp", None)
+    with pytest.raises(UserError) as err:
+        design(parse_config(raw))
+    assert err.value.key == "reducers[1].length" and "pin hole P1" in err.value.problem
+
+
+def test_sleeve_slit_and_key_flat_keep_off_the_pin():
+    root = HERE.parents[1]
+    raw = tomllib.loads((root / "configs" / "six-spreader-sleeves.toml").read_text(encoding="utf-8"))
+    raw.pop("mast_clamp", None)
+    des = design(parse_config(raw))
+    pin = des.plan.hole("P1")
+    ends = [math.degrees(math.atan2(pin.entry_mm[1], pin.entry_mm[0])) + k * 180 for k in (0, 1)]
+    apart = lambda a, b: abs((a - b + 180) % 360 - 180)  # noqa: E731
+    for s in des.sleeves:
+        for feature in (s.slit, s.key_flat):
+            if feature is not None:
+                assert min(apart(feature.azimuth_deg, e) for e in ends) > 1.0, (s.mast_designation, feature)
+
+
+def test_clamps_placed_by_the_planner_leave_a_given_pin_azimuth_free():
+    # the metric demo, feed holes left out, an M6 clamp beside an M8 pin given at 30 deg: the
+    # planner's first choice for the clamp (30 deg) is the pin's, so the clamp goes elsewhere
+    root = HERE.parents[1]
+    raw = tomllib.loads((root / "configs" / "six-spreader-portable.toml").read_text(encoding="utf-8"))
+    raw.pop("holes")
+    raw["mast_clamp"] = {"thread": "M6", "height": 37.5}
+    raw["mast_pin"] = {"thread": "M8", "height": 37.5, "azimuth": 30}
+    des = design(parse_config(raw))
+    (clamp,) = [h for h in des.plan.holes if h.kind == "clamp"]
+    az = math.degrees(math.atan2(clamp.entry_mm[1], clamp.entry_mm[0])) % 360
+    assert min(abs((az - e + 180) % 360 - 180) for e in (30, 210)) > 1.0
+    assert des.plan.hole("P1").note.startswith("through bolt across the hub and the mast at 30 deg")

@@ -80,7 +80,8 @@ class RetentionRules(RulesBase):
 
         u = self.cfg.units
         msg = (f"{h.id}: {point} point of {thread.size} at {torque_text(t, u)} presses {format_force(f, u)} on"
-               f" {area:.1f} mm2 = {format_stress(f / area, u)} on the {pole} pole"
+               + (f" {area / 645.16:.4f} in2 ({area:.1f} mm2)" if u == "in" else f" {area:.1f} mm2")
+               + f" = {format_stress(f / area, u)} on the {pole} pole"
                + (f" ({self.fmt(wall)} wall)" if wall else "")
                + f" against {format_stress(strength, u)} across its wall: safety factor {sf:.2f}")
         if status != PASS:
