@@ -146,7 +146,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     sp = cfg.spreaders
     rows = [
         ["mast", f"{plan.mast_designation}, OD {md.both(plan.mast_od_mm)}"],
-        ["hub", f"{body.style}, {size}, {md.both(body.thickness_mm)} thick, {mat.name} ({plan.process})"],
+        ["hub", f"{body.style}, {size}, {md.both(body.thickness_mm)} thick, {mat.name}" + ("" if plan.process in mat.name else f" ({plan.process})")],
         plate_md.mast_row(d, md),
         ["spreaders", f"{sp.count} x {md.both(sp.diameter)} poles at {sp.elevation:g} deg elevation"
                       + (f" ({len(cfg.sockets)} set apart in [[sockets]], below)," if cfg.sockets else ",")
@@ -174,7 +174,7 @@ def render_report(d, manifest: dict[str, Any], preview: str | None) -> str:
     if preview:
         md.add(f"![isometric view of the hub]({preview})", "",
                "Seen from above, between the +X and -Y sides; socket and hole labels are the ids used"
-               " in the drill schedule.", "")
+               + (" in the print checks below." if plan.process == "printed" else " in the drill schedule."), "")
     else:
         md.add("(no picture: the hub's STL was not there to render)", "")
 

@@ -31,7 +31,8 @@ def summary_lines(result) -> list[str]:
         "  holes  " + ", ".join(f"{n} {k}" for k, n in counts.items()),
     ]
     if "mass_g" in hub:
-        lines.append(f"  mass   {hub['mass_g']:.0f} g in {hub['material']}")
+        lb = f" ({hub['mass_g'] / 453.59237:.2f} lb)" if units == "in" else ""  # 1 lb = 453.59237 g, exact
+        lines.append(f"  mass   {hub['mass_g']:.0f} g{lb} in {hub['material']}")
     lines += list(result.summary)
     for note in m.get("notes", []):
         lines.append(f"  note: {note}")

@@ -28,8 +28,10 @@ def _labels(plan) -> dict[str, tuple]:
         if is_pocket(h):
             continue
         face = plan.face(h.face)
-        if h.kind in ("socket", "set_screw", "clamp", "extra") and visible(h.entry_mm, face.normal):
+        if h.kind in ("socket", "set_screw", "clamp", "pin", "extra") and visible(h.entry_mm, face.normal):
             out[h.id] = h.entry_mm
+        elif h.kind == "pin" and h.exit_face and visible(h.bottom_mm, plan.face(h.exit_face).normal):
+            out[h.id] = h.bottom_mm  # the through bolt's far end, where the viewer sees it
     return out
 
 
