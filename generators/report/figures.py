@@ -19,4 +19,8 @@ def figure(value, unit: str, units: str) -> str:
         return f"{value:.0f} g"
     if unit == "SF":
         return f"SF {value:.2f}"
+    if unit == "MPa":
+        from generators.units import format_stress
+
+        return format_stress(value, units, 1)
     return f"{value:g} {unit}".strip()

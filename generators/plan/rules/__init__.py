@@ -14,6 +14,7 @@ from generators.plan.model import HubPlan
 from generators.plan.rules.base import (  # noqa: F401 - the rules' public vocabulary
     COMMON, FAIL, MIN_WALL_MM, PASS, WARN, RuleResult, speed_text)
 from generators.plan.rules.fasteners import FastenerRules
+from generators.plan.rules.nut_bearing import NutRules
 from generators.plan.rules.placement import PlacementRules, estimate_volume_mm3  # noqa: F401
 from generators.plan.rules.retention import RetentionRules
 from generators.plan.rules.split import SplitRules
@@ -24,7 +25,7 @@ from generators.plan.rules.wind import WindRules
 GROUPS = (
     ("walls", ("rule_socket_wall", "rule_socket_web", "rule_socket_bore", "rule_hole_wall")),
     ("fasteners", ("rule_thread_engagement", "rule_set_screw_length", "rule_set_screw_crush",
-                   "rule_split_bearing")),
+                   "rule_nut_bearing", "rule_split_bearing")),
     ("placement", ("rule_edge_distance", "rule_socket_depth", "rule_socket_tilt", "rule_split_bolt_edge")),
     ("sleeves", ("rule_sleeve_wall",)),
     ("mass", ("rule_mass",)),
@@ -34,7 +35,7 @@ WITH_WIND = ("rule_mast_retention", "rule_split_clamp")
 RULES = tuple(name for _, names in GROUPS for name in names)
 
 
-class _Rules(WallRules, FastenerRules, PlacementRules, RetentionRules, SplitRules, WindRules):
+class _Rules(WallRules, FastenerRules, NutRules, PlacementRules, RetentionRules, SplitRules, WindRules):
     pass
 
 
