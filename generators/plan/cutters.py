@@ -16,6 +16,7 @@ import numpy as np
 from generators.plan.model import Hole
 from generators.plan.print_profiles import _basis, hex_slot_outline, teardrop_outline
 from generators.plan.geometry import cross, unit
+from generators.plan.sdf2d import poly_nearest, poly_sdf
 
 # Segments of a teardrop's 270 deg arc when sampling its surface (the samples lie inside the
 # true arc by at most r(1 - cos(2.8 deg)), 0.12 % of the radius; distances to it are exact).
@@ -58,8 +59,9 @@ class Cutter:
             # the closed section mirrored about the axis, for exact distances on both sides
             self.section = np.concatenate([self.half, self.half[::-1] * np.array([-1.0, 1.0])])
             self.t0, self.t1, self.revolved = t0, self.half[:, 1].max(), True
-            self.plain = (hole.countersink is None and hole.counterbore is None and hole.point_deg is None
-                          and len(self.half) <= 5)  # a plain cylinder: closed form
+            # a plain cylinder (every vertex off the axis at the drill radius): closed form
+            self.plain = (hole.point_deg is None
+                          and all(abs(rho - hole.radius_mm) < 1e-12 for rho, _ in self.half[1:-1]))
 
     def _local(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         d = pts - self.E
@@ -79,6 +81,46 @@ class Cutter:
         dt = np.maximum(self.t0 - t, t - self.t1)
         out = np.hypot(np.maximum(d2, 0), np.maximum(dt, 0))
         return np.where((d2 <= 0) & (dt <= 0), np.maximum(d2, dt), out)
+
+    def nearest(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+        """``sdf`` and, for each point, the nearest point of the cut's surface (N, 3); inside
+        a teardrop, the nearest point of whichever of its round hole and roof is deeper."""
+        t, q = self._local(pts)
+        if self.revolved:
+            rho = np.hypot(q[:, 0], q[:, 1])
+            if self.plain:
+                d2, n2 = rho - self.hole.radius_mm, None
+            else:
+                d, n = poly_nearest(np.stack([rho, t], axis=1), self.section)
+                return d, self._to_world(q, rho, n[:, 0], n[:, 1])
+        elif self.roof is not None:
+            rho = np.hypot(q[:, 0], q[:, 1])
+            dc = rho - self.hole.radius_mm
+            dr, nr = poly_nearest(q, self.roof)
+            nc = q * (self.hole.radius_mm / np.where(rho > 0, rho, 1.0))[:, None]
+            nc[rho <= 0] = (self.hole.radius_mm, 0.0)
+            d2 = np.minimum(dc, dr)
+            n2 = np.where((dc <= dr)[:, None], nc, nr)
+        else:
+            d2, n2 = poly_nearest(q, self.section)
+        dt = np.maximum(self.t0 - t, t - self.t1)
+        out = np.hypot(np.maximum(d2, 0), np.maximum(dt, 0))
+        inside = (d2 <= 0) & (dt <= 0)
+        d = np.where(inside, np.maximum(d2, dt), out)
+        cap = np.where(t - self.t0 < self.t1 - t, self.t0, self.t1)
+        to_side = ~inside & (d2 > 0) | inside & (d2 >= dt)  # else the section stays: a cap or inside it
+        t_n = np.where(inside, np.where(d2 >= dt, t, cap), np.clip(t, self.t0, self.t1))
+        if self.revolved:  # the plain cylinder
+            return d, self._to_world(q, rho, np.where(to_side, self.hole.radius_mm, rho), t_n)
+        q_n = np.where(to_side[:, None], n2, q)
+        return d, self.E + t_n[:, None] * self.a + q_n[:, 0:1] * self.x + q_n[:, 1:2] * self.y
+
+    def _to_world(self, q, rho, rho_n, t_n) -> np.ndarray:
+        """A point at radius ``rho_n`` and depth ``t_n`` on the side of the axis ``q`` is on."""
+        safe = np.where(rho > 0, rho, 1.0)
+        ux, uy = np.where(rho > 0, q[:, 0] / safe, 1.0), np.where(rho > 0, q[:, 1] / safe, 0.0)
+        return (self.E + t_n[:, None] * self.a + (rho_n * ux)[:, None] * self.x
+                + (rho_n * uy)[:, None] * self.y)
 
     def surface(self, step: float, near: tuple | None = None) -> np.ndarray:
         """Points on the cutter's surface, about ``step`` apart; with ``near = (point, r)``
@@ -208,44 +250,6 @@ def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
                 pts.append((rho, t))
     pts.append((0.0, t1 + point_depth_mm(h)))
     return pts
-
-
-_EDGES: dict[int, tuple] = {}
-
-
-def _edges(poly: np.ndarray) -> tuple:
-    """(ab, L2, slope) of a polygon's edges, kept per array: a cutter's section is asked
-    thousands of times."""
-    key = id(poly)
-    got = _EDGES.get(key)
-    if got is not None and got[0] is poly:
-        return got[1]
-    ab = np.roll(poly, -1, axis=0) - poly
-    L2 = np.where((ab * ab).sum(axis=1) > 0, (ab * ab).sum(axis=1), 1.0)
-    with np.errstate(divide="ignore", invalid="ignore"):
-        slope = np.where(ab[:, 1] == 0, 0.0, ab[:, 0] / np.where(ab[:, 1] == 0, 1.0, ab[:, 1]))
-    if len(_EDGES) > 4096:
-        _EDGES.clear()
-    _EDGES[key] = (poly, (ab, L2, slope))
-    return ab, L2, slope
-
-
-def poly_sdf(q: np.ndarray, poly: np.ndarray, chunk: int = 4096) -> np.ndarray:
-    """Signed distance of 2D points to a simple polygon (negative inside), all edges at once."""
-    a = poly
-    ab, L2, slope = _edges(poly)
-    out = np.empty(len(q))
-    for lo in range(0, len(q), chunk):
-        p = q[lo:lo + chunk]
-        ap = p[:, None, :] - a[None, :, :]
-        t = np.clip((ap * ab[None]).sum(axis=2) / L2[None], 0.0, 1.0)
-        d = np.hypot(ap[..., 0] - t * ab[None, :, 0], ap[..., 1] - t * ab[None, :, 1]).min(axis=1)
-        y1, y2 = a[None, :, 1], a[None, :, 1] + ab[None, :, 1]
-        cross_ = (y1 > p[:, None, 1]) != (y2 > p[:, None, 1])
-        xc = a[None, :, 0] + (p[:, None, 1] - y1) * slope[None]
-        inside = (np.count_nonzero(cross_ & (p[:, None, 0] < xc), axis=1) % 2) == 1
-        out[lo:lo + chunk] = np.where(inside, -d, d)
-    return out
 
 
 def _walk(poly: np.ndarray, step: float, closed: bool):

@@ -23,12 +23,14 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from generators.plan.cutters import Cutter, poly_sdf
+from generators.plan.cutters import Cutter
+from generators.plan.sdf2d import poly_sdf
 from generators.plan.kinds import POCKET_KINDS
 from generators.plan.model import Hole, HubPlan
 
 COARSE_MM, FINE_MM, REFINE_BELOW_MM = 1.0, 0.2, 12.0
 INSIDE_EPS_MM = 1e-6
+RIM_TOL_MM = 5e-4  # rims are bisected to this: well under the 0.001 mm walls are reported to
 
 
 @dataclass(frozen=True)
@@ -208,7 +210,13 @@ def _rims(c: Cutter, partners: list[Cutter], body: _Body, step: float, near) -> 
     if got is None or len(got[0]) == 0:
         return np.empty((0, 3))
     starts, a, length = got
-    ts = np.linspace(0.0, length, max(2, int(math.ceil(length / step)) + 1))
+    t_lo, t_hi = 0.0, length
+    if near is not None:  # only the stretch of the lines within reach of the point
+        tp = float((np.asarray(near[0], dtype=float) - starts[0]) @ a)
+        t_lo, t_hi = max(0.0, tp - near[1] - step), min(length, tp + near[1] + step)
+        if t_hi <= t_lo:
+            return np.empty((0, 3))
+    ts = np.linspace(t_lo, t_hi, max(2, int(math.ceil((t_hi - t_lo) / step)) + 1))
     pts = starts[:, None, :] + ts[None, :, None] * a  # (lines, levels, 3)
     g = _exposure(pts.reshape(-1, 3), partners, body).reshape(pts.shape[:2])
     li, ki = np.nonzero((g[:, :-1] >= 0) != (g[:, 1:] >= 0))
@@ -216,7 +224,7 @@ def _rims(c: Cutter, partners: list[Cutter], body: _Body, step: float, near) -> 
         return np.empty((0, 3))
     lo, hi = ts[ki].copy(), ts[ki + 1].copy()
     g_lo = g[li, ki] >= 0
-    for _ in range(16):  # a step of 1 mm over 2^16: under 0.02 micron
+    for _ in range(max(4, math.ceil(math.log2((ts[1] - ts[0]) / RIM_TOL_MM)))):
         mid = (lo + hi) / 2
         p = starts[li] + mid[:, None] * a
         g_mid = _exposure(p, partners, body) >= 0
@@ -252,15 +260,12 @@ def _to_exposed(pts: np.ndarray, j: int, cutters: list[Cutter], body: _Body, clo
     order = np.argsort(d)
     partners = [o for k, o in enumerate(cutters) if k != j and meets_by_design(c.hole, o.hole)]
     best, best_k = np.inf, int(order[0]) if len(order) else 0
-    h = 1e-4
     for lo in range(0, len(order), 256):
         idx = order[lo:lo + 256]
         if d[idx[0]] >= best:
             break
-        p, dd = pts[idx], d[idx]
-        grad = np.stack([(c.sdf(p + e) - c.sdf(p - e)) / (2 * h) for e in np.eye(3) * h], axis=1)
-        n = grad / np.maximum(np.linalg.norm(grad, axis=1), 1e-12)[:, None]
-        q = p - dd[:, None] * n
+        p = pts[idx]
+        dd, q = c.nearest(p)  # q: the nearest point of the shape (used only outside it)
         ok = body.inside(q) | (dd <= 0)
         for o in partners:
             ok &= (o.sdf_or_box(q) >= -INSIDE_EPS_MM) | (dd <= 0)

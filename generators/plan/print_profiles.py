@@ -10,6 +10,7 @@ import numpy as np
 from generators.config.models import Config
 from generators.plan.geometry import Vec, cross, dot, unit
 from generators.plan.model import Hole
+from generators.plan.sdf2d import poly_sdf as _poly_sdf
 
 MIN_WALL_LINES = 4
 # A flat roof over a void (a bridge) prints clean up to about 15 mm in PETG or ASA with
@@ -99,24 +100,6 @@ class _Region:
         dt = np.maximum(self.t0 - t, t - self.t1)
         out = np.hypot(np.maximum(d2, 0), np.maximum(dt, 0))
         return np.where((d2 <= 0) & (dt <= 0), np.maximum(d2, dt), out)
-
-
-def _poly_sdf(q: np.ndarray, poly: np.ndarray) -> np.ndarray:
-    a, b = poly, np.roll(poly, -1, axis=0)
-    ab = b - a
-    best = np.full(len(q), np.inf)
-    inside = np.zeros(len(q), dtype=bool)
-    for i in range(len(poly)):
-        ap = q - a[i]
-        L2 = ab[i] @ ab[i]
-        s = np.clip((ap @ ab[i]) / L2, 0.0, 1.0) if L2 > 0 else np.zeros(len(q))
-        best = np.minimum(best, np.hypot(ap[:, 0] - s * ab[i, 0], ap[:, 1] - s * ab[i, 1]))
-        y1, y2 = a[i, 1], b[i, 1]
-        cond = (y1 > q[:, 1]) != (y2 > q[:, 1])
-        with np.errstate(divide="ignore", invalid="ignore"):
-            xc = a[i, 0] + (q[:, 1] - y1) * ab[i, 0] / np.where(ab[i, 1] == 0, 1, ab[i, 1])
-        inside ^= cond & (q[:, 0] < xc)
-    return np.where(inside, -best, best)
 
 
 def edge_distances(pts: np.ndarray, outline) -> np.ndarray:

@@ -240,8 +240,12 @@ class _Splitter(BoltPlanner):
         ok = lambda w: w >= self.want_wall + SEARCH_MARGIN_MM  # noqa: E731
         top = self.T - self.want_wall
         coarse = [round(top - k * COARSE_STEP_MM, 6) for k in range(int(top / COARSE_STEP_MM))]
-        seen = [(wall(z), z) for z in coarse]
-        first = next((z for w, z in seen if ok(w)), None)
+        seen, first = [], None
+        for z in coarse:  # top down; the first that keeps the wall ends the pass
+            seen.append((wall(z), z))
+            if ok(seen[-1][0]):
+                first = z
+                break
         if first is None:
             return max(seen)[1] if seen else self.T / 2
         z = min(top, first + COARSE_STEP_MM)
@@ -253,11 +257,14 @@ class _Splitter(BoltPlanner):
 
     def _bolt_wall(self, offset: float, z: float) -> float:
         """The least material from the bolts' cuts at ``z`` to the other cuts and to the
-        top and bottom faces (the nut slots open onto the top face by design)."""
+        top and bottom faces (the nut slots open onto the top face by design). Exact up to
+        the recommended wall and its search margin; past that a lower bound, which is all the
+        search asks of it."""
         from generators.plan.measured_walls import _Body
 
         body = _Body(self.plan)
         least = math.inf
+        exact_to = self.want_wall + SEARCH_MARGIN_MM + 1.0
         for k, s in enumerate((offset, -offset)):
             c = self.bolt_cuts(f"B{k + 1}", s, z)
             for h in (c.hole, *c.pockets):
@@ -269,7 +276,7 @@ class _Splitter(BoltPlanner):
                 for o, (olo, ohi) in zip(self.cutters.values(), self.boxes):
                     if np.any(olo > hi) or np.any(ohi < lo):
                         continue  # farther than any wall that counts
-                    least = min(least, float(o.sdf(pts).min()))
+                    least = min(least, float(o.sdf_or_box(pts, margin=exact_to).min()))
                 least = min(least, float(pts[:, 2].min()))
                 if h.kind != "nut_pocket":
                     least = min(least, float((self.T - pts[:, 2]).min()))
