@@ -132,17 +132,24 @@ class Cutter:
         pts = []
         if self.revolved:
             phi_p = math.atan2(qp[1], qp[0]) if qp is not None else 0.0
-            for rho, t in _walk(self.half, step, closed=False):
-                if near is not None and abs(t - tp) > r:
-                    continue
-                n = max(6, int(math.ceil(2 * math.pi * rho / step))) if rho > 1e-9 else 1
-                ang = np.arange(n) * (2 * math.pi / n)
-                if near is not None and rho > r:
-                    dphi = (ang - phi_p + math.pi) % (2 * math.pi) - math.pi
-                    ang = ang[np.abs(dphi) <= 2 * math.asin(min(1.0, r / (2 * rho))) + 2 * math.pi / n]
-                pts.append(self.E + self.a * t + np.outer(rho * np.cos(ang), self.x) + np.outer(rho * np.sin(ang), self.y))
+            walk = _walk(self.half, step, closed=False)
+            if near is not None:
+                walk = walk[np.abs(walk[:, 1] - tp) <= r]
+            rho, t = walk[:, 0], walk[:, 1]
+            n = np.where(rho > 1e-9, np.maximum(6, np.ceil(2 * math.pi * rho / step)), 1).astype(int)
+            k = np.repeat(np.arange(len(n)), n)  # each point's ring
+            j = np.arange(len(k)) - np.repeat(np.cumsum(n) - n, n)  # its place round the ring
+            ang = j * (2 * math.pi / n[k])
+            if near is not None:
+                dphi = (ang - phi_p + math.pi) % (2 * math.pi) - math.pi
+                reach = 2 * np.arcsin(np.minimum(1.0, r / (2 * np.maximum(rho, 1e-300)))) + 2 * math.pi / n
+                keep = (rho <= r)[k] | (np.abs(dphi) <= reach[k])
+                k, ang = k[keep], ang[keep]
+            rk = rho[k]
+            pts.append(self.E + t[k][:, None] * self.a + (rk * np.cos(ang))[:, None] * self.x
+                       + (rk * np.sin(ang))[:, None] * self.y)
         else:
-            ring = np.array(list(_walk(self.section, step, closed=True)))
+            ring = _walk(self.section, step, closed=True)
             levels = np.linspace(self.t0, self.t1, max(2, int(math.ceil((self.t1 - self.t0) / step)) + 1))
             # the entry and the depth: where a cut meets the face it enters or its far face
             levels = np.union1d(levels, [t for t in (0.0, self.hole.depth_mm) if self.t0 < t < self.t1])
@@ -181,7 +188,7 @@ class Cutter:
             ring = np.stack([r * np.cos(ang), r * np.sin(ang)], axis=1)
         else:
             ta, tb = self.t0, self.t1
-            ring = np.array(list(_walk(self.section, step, closed=True)))
+            ring = _walk(self.section, step, closed=True)
         if near is not None:
             _, q_ = self._local(np.asarray(near[0], dtype=float)[None])
             ring = ring[np.hypot(*(ring - q_[0]).T) <= near[1]]
@@ -252,13 +259,12 @@ def _half_section(h: Hole, t0: float, t1: float) -> list[tuple[float, float]]:
     return pts
 
 
-def _walk(poly: np.ndarray, step: float, closed: bool):
-    """Points along a polyline about ``step`` apart, every vertex included."""
-    n = len(poly) if closed else len(poly) - 1
-    for i in range(n):
-        p, q = poly[i], poly[(i + 1) % len(poly)]
-        k = max(1, int(math.ceil(float(np.hypot(*(q - p))) / step)))
-        for j in range(k):
-            yield p + (q - p) * (j / k)
-    if not closed:
-        yield poly[-1]
+def _walk(poly: np.ndarray, step: float, closed: bool) -> np.ndarray:
+    """Points along a polyline about ``step`` apart, every vertex included (M, 2)."""
+    a = poly if closed else poly[:-1]
+    b = np.roll(poly, -1, axis=0) if closed else poly[1:]
+    k = np.maximum(1, np.ceil(np.hypot(*(b - a).T) / step)).astype(int)
+    e = np.repeat(np.arange(len(k)), k)
+    f = (np.arange(len(e)) - np.repeat(np.cumsum(k) - k, k)) / k[e]
+    out = a[e] + (b[e] - a[e]) * f[:, None]
+    return out if closed else np.concatenate([out, poly[-1:]])

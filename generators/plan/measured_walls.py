@@ -50,6 +50,17 @@ class _Body:
     def __init__(self, plan: HubPlan):
         self.plan = plan
         self.faces = [f for f in plan.faces]
+        flat = [f for f in self.faces if f.kind != "rim"]
+        self._n = np.array([f.normal for f in flat], dtype=float).reshape(-1, 3)
+        self._c = np.einsum("ij,ij->i", np.array([f.origin for f in flat], dtype=float).reshape(-1, 3), self._n)
+        self._rims = [f.rim_radius_mm for f in self.faces if f.kind == "rim"]
+
+    def depth(self, pts: np.ndarray) -> np.ndarray:
+        """The least ``face_distance`` over every face (positive inside the body)."""
+        d = (self._c - pts @ self._n.T).min(axis=1) if len(self._n) else np.full(len(pts), np.inf)
+        for r in self._rims:
+            d = np.minimum(d, r - np.hypot(pts[:, 0], pts[:, 1]))
+        return d
 
     def face_distance(self, face, pts: np.ndarray) -> np.ndarray:
         """Distance inward from the face's plane (positive inside the body)."""
@@ -73,8 +84,7 @@ class _Body:
         return np.hypot(h, off)
 
     def inside(self, pts: np.ndarray) -> np.ndarray:
-        d = np.min(np.stack([self.face_distance(f, pts) for f in self.faces]), axis=0)
-        return d >= -INSIDE_EPS_MM
+        return self.depth(pts) >= -INSIDE_EPS_MM
 
 
 def meets_by_design(a: Hole, b: Hole) -> bool:
@@ -195,7 +205,7 @@ def _exposed(c: Cutter, i: int, cutters: list[Cutter], body: _Body, step: float,
 def _exposure(pts: np.ndarray, partners: list[Cutter], body: _Body) -> np.ndarray:
     """Positive where a point of a cut's surface is a surface of the part: inside the body and
     outside every cut it meets by design."""
-    g = np.min(np.stack([body.face_distance(f, pts) for f in body.faces]), axis=0)
+    g = body.depth(pts)
     for o in partners:
         g = np.minimum(g, o.sdf_or_box(pts))
     return g
