@@ -104,7 +104,8 @@ class PocketSearch:
         pts = np.array([h.point_at(float(t)) for t in ts])
         inside = np.zeros(len(ts), dtype=bool)
         for r in others:
-            inside |= r.distance(pts) < 0
+            if r.least(pts, 0.0) < 0:
+                inside |= r.distance(pts) < 0
         hit = np.nonzero(inside)[0]
         return float(ts[hit[0]]) if len(hit) else h.depth_mm
 
@@ -162,7 +163,7 @@ class PocketSearch:
             if o.id == pocket.serves:
                 continue
             for r in regions_of(o):
-                d = r.distance(pts_in).min() if len(pts_in) else math.inf
+                d = r.least(pts_in, self.wall)
                 if d < self.wall - 1e-6:
                     return f"{self.fmt(max(d, 0))} of material to {o.id}"
         # walls to the outer faces, from the pocket itself (not its slot)

@@ -91,6 +91,20 @@ class _Region:
         self.poly = np.array(poly, dtype=float)
         self.t0, self.t1 = t0, t1
 
+    def least(self, pts: np.ndarray, limit: float) -> float:
+        """The least ``distance`` of the points, exact when it is under ``limit`` (else a
+        figure at least ``limit``): points whose distance to the region's axis segment, less
+        its widest reach, is not under the limit are not measured."""
+        if not len(pts):
+            return math.inf
+        d = pts - self.E
+        t = np.clip(d @ self.a, self.t0, self.t1)
+        lb = np.linalg.norm(d - t[:, None] * self.a, axis=1) - float(np.hypot(*self.poly.T).max())
+        close = lb < limit
+        if not close.any():
+            return float(lb.min())
+        return float(self.distance(pts[close]).min())
+
     def distance(self, pts: np.ndarray) -> np.ndarray:
         """Signed distance of points (N, 3) to the region (negative inside)."""
         d = pts - self.E

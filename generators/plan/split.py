@@ -239,18 +239,32 @@ class _Splitter(BoltPlanner):
 
         ok = lambda w: w >= self.want_wall + SEARCH_MARGIN_MM  # noqa: E731
         top = self.T - self.want_wall
+        need = self.want_wall + SEARCH_MARGIN_MM
         coarse = [round(top - k * COARSE_STEP_MM, 6) for k in range(int(top / COARSE_STEP_MM))]
-        seen, first = [], None
+        seen: dict[float, float] = {}
+
+        def bound(z: float) -> float:
+            """The most wall ``z`` can have, from the heights measured: a wall changes by at
+            most the distance the bolts move (less a sample step, as samples enter the body)."""
+            return min((w + abs(z - z0) + SEARCH_SAMPLE_MM for z0, w in seen.items() if w > -math.inf),
+                       default=math.inf)
+
+        first = None
         for z in coarse:  # top down; the first that keeps the wall ends the pass
-            seen.append((wall(z), z))
-            if ok(seen[-1][0]):
+            if bound(z) < need:
+                continue  # too near a height measured thin to keep the wall
+            seen[z] = wall(z)
+            if ok(seen[z]):
                 first = z
                 break
-        if first is None:
-            return max(seen)[1] if seen else self.T / 2
+        if first is None:  # the most wall of all the heights, skipping those that cannot beat it
+            for z in coarse:
+                if z not in seen and bound(z) >= max(seen.values(), default=-math.inf):
+                    seen[z] = wall(z)
+            return max((w, z) for z, w in seen.items())[1] if seen else self.T / 2
         z = min(top, first + COARSE_STEP_MM)
         while z > first + 1e-9:
-            if ok(wall(z)):
+            if bound(z) >= need and ok(wall(z)):
                 return z
             z = round(z - HEIGHT_STEP_MM, 6)
         return first
