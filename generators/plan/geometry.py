@@ -94,3 +94,9 @@ def edge_distance(p: Pt, poly: Sequence[Pt]) -> float:
     """Distance from ``p`` to the polygon boundary; negative when outside."""
     d = min(point_segment_distance_2d(p, poly[i], poly[(i + 1) % len(poly)]) for i in range(len(poly)))
     return d if inside_polygon(p, poly) else -d
+
+
+def hex_face_mm2(across_flats_mm: float, hole_mm: float) -> float:
+    """Bearing area of a hex nut's face on a flat wall with a round hole through it: the
+    hexagon, (sqrt 3 / 2) s^2, less the hole."""
+    return math.sqrt(3) / 2 * across_flats_mm ** 2 - math.pi / 4 * hole_mm ** 2

@@ -16,7 +16,7 @@ from dataclasses import dataclass
 
 from generators.errors import UserError
 from generators.plan import limits as L
-from generators.plan.geometry import Vec
+from generators.plan.geometry import Vec, hex_face_mm2
 from generators.plan.model import Counterbore, Hole, Screw, ThreadRun
 
 # Material between a bolt's head (or nut) and the split face: 2 x d, at least 8 mm (common
@@ -43,7 +43,7 @@ def bearing_area_mm2(plan, bolt_hole: str) -> tuple[float, str]:
     areas = [(math.pi / 4 * cap_screw_head_mm(thread, key="split.thread") ** 2 - hole, "the head")]
     nut = next((p for p in plan.holes if p.kind == "nut_pocket" and p.serves == bolt_hole), None)
     if nut is not None:  # the nut's face on the pocket wall: the hexagon less the hole
-        areas.append((math.sqrt(3) / 2 * nut.across_flats_mm ** 2 - hole, "the nut"))
+        areas.append((hex_face_mm2(nut.across_flats_mm, h.diameter_mm), "the nut"))
     return min(areas)
 
 

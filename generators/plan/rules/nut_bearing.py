@@ -11,14 +11,8 @@ print and the screw loses its hold).
 
 from __future__ import annotations
 
-import math
-
+from generators.plan.geometry import hex_face_mm2
 from generators.plan.rules.base import COMMON, FAIL, PASS, WARN, RuleResult, RulesBase
-
-
-def nut_face_mm2(across_flats_mm: float, hole_mm: float) -> float:
-    """Bearing area of a hex nut's face on a flat wall with a round hole through it."""
-    return math.sqrt(3) / 2 * across_flats_mm ** 2 - math.pi / 4 * hole_mm ** 2
 
 
 class NutRules(RulesBase):
@@ -41,7 +35,7 @@ class NutRules(RulesBase):
             force = preload_n(torque, thread, K_CRUSH)
             nut = hex_nut(thread)
             hole = h.diameter_mm - h.compensation_mm
-            area = nut_face_mm2(nut.across_flats_mm, hole)
+            area = hex_face_mm2(nut.across_flats_mm, hole)
             stress = force / area
             if worst is None or stress > worst[0]:
                 worst = (stress, h, thread, torque, t_src, force, area, nut)
