@@ -17,10 +17,8 @@ from generators.design import design
 from generators.errors import UserError
 
 ROOT = Path(__file__).resolve().parents[2]
-# every demo: block, puck, printed and the U-bolt plate; the split demo is left out here for
-# time (each of its designs searches the bolt height, about 5 s: a sizing run of minutes)
-DEMOS = sorted(p.name for p in (ROOT / "configs").glob("*.toml")
-               if not p.name.endswith(".sized.toml") and "split" not in p.name)
+# every demo: block, puck, printed, split and the U-bolt plate
+DEMOS = sorted(p.name for p in (ROOT / "configs").glob("*.toml") if not p.name.endswith(".sized.toml"))
 MM_PER_IN = 25.4
 
 
@@ -72,3 +70,14 @@ def one_step_smaller(data: dict, key: str) -> dict:
 
 def mass_g(path: Path) -> float:
     return design(load_config(path)).checks.mass_estimate_g
+
+
+_SIZED: dict[str, tuple] = {}
+
+
+def sized_demo(name: str, tmp_path_factory) -> tuple[Path, int, dict]:
+    """``size --json`` on a copy of demo ``name`` (once per session): (copy, exit code, JSON)."""
+    if name not in _SIZED:
+        cfg = copy(ROOT / "configs" / name, tmp_path_factory.mktemp("size"))
+        _SIZED[name] = (cfg, *size_json(cfg))
+    return _SIZED[name]

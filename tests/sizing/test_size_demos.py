@@ -8,19 +8,12 @@ import tomllib
 
 import pytest
 
-from tests.sizing.helpers import DEMOS, ROOT, copy, mass_g, one_step_smaller, run, size_json, verdict
-
-_CACHE: dict[str, tuple] = {}
+from tests.sizing.helpers import DEMOS, ROOT, mass_g, one_step_smaller, run, sized_demo, verdict
 
 
 @pytest.fixture(params=DEMOS)
 def sized(request, tmp_path_factory):
-    name = request.param
-    if name not in _CACHE:
-        cfg = copy(ROOT / "configs" / name, tmp_path_factory.mktemp("size"))
-        code, data = size_json(cfg)
-        _CACHE[name] = (cfg, code, data)
-    return _CACHE[name]
+    return sized_demo(request.param, tmp_path_factory)
 
 
 def test_sized_passes_check(sized):
