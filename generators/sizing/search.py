@@ -1,18 +1,18 @@
-"""The sizing search: coordinate bisection on the shop grid, judged by ``design()``.
+"""The sizing search: coordinate descent on the shop grid, judged by ``design()``.
 
 A point passes when ``design()`` accepts it (no hard-limit refusal) and no rule fails
 (with ``strict``, none warns either) -- exactly what makes ``hubwright check`` exit 0.
 From a passing start, each dimension in turn is bisected down to the least value that
-still passes with the others held; passes repeat until none moves, so the end point is
-locally minimal: one step less in any dimension fails a rule or is refused. Every order of
-the dimensions is tried (up to three; two orders beyond) and the lightest (or smallest
-stock) of the minimal points wins. A start that fails is grown first; when nothing in the
-space passes, the result names the rules that failed at every buildable attempt.
+still passes with the others held (later passes step down 1, 2, 4 ... from where it is);
+passes repeat until none moves, so the end point is locally minimal: one step less in any
+dimension fails a rule or is refused. The descent runs once with each dimension leading
+(up to three; forwards and backwards beyond) and the lightest (or smallest stock) of the
+minimal points wins. A start that fails is grown first; when nothing in the space passes,
+the result names the rules that failed at every buildable attempt.
 """
 
 from __future__ import annotations
 
-import itertools
 import math
 from dataclasses import dataclass, field
 
@@ -128,15 +128,26 @@ class Space:
         return tuple(p)
 
     def descend(self, start: tuple[int, ...], order) -> tuple[int, ...]:
-        """Bisect each dimension down to its least passing value; repeat until none moves."""
+        """Bisect each dimension down to its least passing value; repeat until none moves.
+        Later passes, where a value has moved little if at all, step down 1, 2, 4 ... until
+        one fails and bisect only that bracket (one design when nothing moved)."""
         x = list(start)
-        for _ in range(MAX_PASSES):
+        for n_pass in range(MAX_PASSES):
             moved = False
             for i in order:
                 hi, lo = x[i], self.dims[i].lowest
                 if hi <= lo:
                     continue
-                if self(self.step(tuple(x), i, lo - hi)).ok:
+                if n_pass:
+                    lo, jump = None, 1
+                    while lo is None and hi > self.dims[i].lowest:
+                        k = max(self.dims[i].lowest, hi - jump)
+                        if self(self.step(tuple(x), i, k - x[i])).ok:
+                            hi, jump = k, jump * 2
+                        else:
+                            lo = k
+                    lo = hi if lo is None else lo
+                if n_pass == 0 and self(self.step(tuple(x), i, lo - hi)).ok:
                     hi = lo
                 else:
                     while hi - lo > 1:
@@ -201,7 +212,9 @@ def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str
     """Search every material's space (``None``: the config's own material)."""
     result = SizingResult(dims, objective, None)
     n = len(dims)
-    orders = list(itertools.permutations(range(n))) if n <= 3 else [tuple(range(n)), tuple(reversed(range(n)))]
+    # each dimension leads once (up to three), else forwards and backwards
+    orders = ([tuple((i + k) % n for i in range(n)) for k in range(n)] if n <= 3
+              else [tuple(range(n)), tuple(reversed(range(n)))])
     for mat in materials or [None]:
         space = Space(raw, units, dims, mat, objective, strict)
         start = tuple(d.start for d in dims)
