@@ -74,13 +74,17 @@ class Cutter:
             return poly_sdf(np.stack([np.hypot(q[:, 0], q[:, 1]), t], axis=1), self.section)
         if self.revolved:
             d2 = np.hypot(q[:, 0], q[:, 1]) - self.hole.radius_mm
-        elif self.roof is not None:
-            d2 = np.minimum(np.hypot(q[:, 0], q[:, 1]) - self.hole.radius_mm, poly_sdf(q, self.roof))
         else:
-            d2 = poly_sdf(q, self.section)
+            d2 = self._section_sdf(q)
         dt = np.maximum(self.t0 - t, t - self.t1)
         out = np.hypot(np.maximum(d2, 0), np.maximum(dt, 0))
         return np.where((d2 <= 0) & (dt <= 0), np.maximum(d2, dt), out)
+
+    def _section_sdf(self, q: np.ndarray) -> np.ndarray:
+        """Signed distance in the section of a prism (a teardrop: its round hole and roof)."""
+        if self.roof is not None:
+            return np.minimum(np.hypot(q[:, 0], q[:, 1]) - self.hole.radius_mm, poly_sdf(q, self.roof))
+        return poly_sdf(q, self.section)
 
     def nearest(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         """``sdf`` and, for each point, the nearest point of the cut's surface (N, 3); inside
@@ -162,7 +166,7 @@ class Cutter:
                 lo, hi = np.maximum(lo, qp - r), np.minimum(hi, qp + r)
             gx, gy = np.meshgrid(np.arange(lo[0], hi[0] + step, step), np.arange(lo[1], hi[1] + step, step))
             grid = np.stack([gx.ravel(), gy.ravel()], axis=1)
-            grid = grid[poly_sdf(grid, self.section) <= 0] if len(grid) else grid
+            grid = grid[self._section_sdf(grid) <= 0] if len(grid) else grid
             for t in (self.t0, self.t1):
                 if abs(t - tp) <= r or near is None:
                     pts.append(self.E + self.a * t + np.outer(grid[:, 0], self.x) + np.outer(grid[:, 1], self.y))
