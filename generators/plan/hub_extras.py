@@ -9,7 +9,7 @@ from generators.plan import limits as L
 from generators.plan.geometry import segment_distance
 from generators.plan.holes import clearance_drill, drill_name_for, tap_hole
 from generators.plan.model import Counterbore, Countersink, Hole, ThreadRun
-from generators.plan.screws import tapped_extra_screw
+from generators.plan.screws import clearance_screw, tapped_extra_screw
 
 # A twist drill's point: 118 deg included angle, the general-purpose grind (ISO 5419 names
 # the point angle; 118 deg is the usual figure, from memory). A blind drilled hole ends in
@@ -84,6 +84,10 @@ class ExtraHoles:
                     raise UserError(f"{key}.at", f"hole {spec.id} runs into hole {other.id}",
                                     f"at least {self.fmt(L.MIN_WEB_MM)} of material between them")
             run = screw = None
+            if thread is None and spec.clearance is not None and through:
+                head = "flat" if cs is not None else "socket" if cb is not None else "pan"
+                screw = clearance_screw(spec.clearance.designation, depth, head,
+                                        cb.depth_mm if cb is not None else 0.0, self.units, self.fmt)
             if thread is not None:
                 from generators.standards.engagement import tap_depth_mm
 

@@ -309,7 +309,9 @@ def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
             continue
         spec = specs.get(h.id)
         clear = spec.clearance.designation if spec is not None and spec.clearance is not None else None
-        if h.screw is not None:
+        if clear and h.screw is not None:  # through a clearance hole: its length from the plan
+            key = (h.screw.standard.split(";")[0] + " + washer + hex nut", clear, h.screw.note)
+        elif h.screw is not None:
             key = ("screw into a tapped hole" if h.thread else "screw + captive nut or insert", h.screw.designation,
                    h.screw.note)
         elif clear and h.countersink:
