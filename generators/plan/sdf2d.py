@@ -31,19 +31,21 @@ def _edges(poly: np.ndarray) -> tuple:
     return data
 
 
-def poly_sdf(q: np.ndarray, poly: np.ndarray) -> np.ndarray:
+def poly_sdf(q: np.ndarray, poly: np.ndarray, axis_closed: bool = False) -> np.ndarray:
     """Signed distance of points ``q`` (N, 2) to the closed polygon ``poly`` (M, 2),
-    negative inside (even-odd rule)."""
-    return _sdf(q, poly, None)
+    negative inside (even-odd rule). ``axis_closed``: the polygon is half a section of
+    revolution, closed by its last edge along the axis ``x = 0``, and every point has
+    ``x >= 0``; that edge is then no boundary (the mirrored half is never nearer)."""
+    return _sdf(q, poly, None, axis_closed)
 
 
-def poly_nearest(q: np.ndarray, poly: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+def poly_nearest(q: np.ndarray, poly: np.ndarray, axis_closed: bool = False) -> tuple[np.ndarray, np.ndarray]:
     """``poly_sdf`` and the nearest point of the polygon's boundary to each point (N, 2)."""
     near = np.empty((len(q), 2))
-    return _sdf(q, poly, near), near
+    return _sdf(q, poly, near, axis_closed), near
 
 
-def _sdf(q: np.ndarray, poly: np.ndarray, near: np.ndarray | None) -> np.ndarray:
+def _sdf(q: np.ndarray, poly: np.ndarray, near: np.ndarray | None, axis_closed: bool = False) -> np.ndarray:
     ax, ay, abx, aby, inv, slope, by = _edges(poly)
     out = np.empty(len(q))
     for lo in range(0, len(q), CHUNK):
@@ -53,6 +55,8 @@ def _sdf(q: np.ndarray, poly: np.ndarray, near: np.ndarray | None) -> np.ndarray
         np.clip(t, 0.0, 1.0, out=t)
         dx, dy = apx - t * abx, apy - t * aby
         d2 = dx * dx + dy * dy
+        if axis_closed:
+            d2[:, -1] = np.inf
         if near is None:
             d = np.sqrt(d2.min(axis=1))
         else:
