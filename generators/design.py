@@ -48,8 +48,31 @@ class Design:
         return [op.record() for op in self.operations]
 
 
-def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
-    """The whole design, or a ``UserError`` naming what cannot be built."""
+def failing_before_walls(cfg: Config) -> tuple[object, tuple[tuple[str, str], ...]]:
+    """The plan (None for a plate) and (rule id, status) of the rules that fail or warn
+    before a wall is measured: every rule but the walls' group, with the hard limits but the
+    walls'. A design with any failing here fails ``check`` whatever its walls; the sizing
+    search uses it to pass over such designs without measuring them (``design(cfg,
+    plan=...)`` then goes on from the same plan). Raises ``UserError`` as ``design()`` does."""
+    from generators.plan.bed_fit import check_bed
+    from generators.plan.hub import build_plan
+    from generators.plan.reducer import plan_sleeves
+    from generators.plan.rules import GROUPS, evaluate
+    from generators.plan.tipcap import tip_cap_plan
+
+    if cfg.hub.style == "plate":
+        return None, ()
+    plan = build_plan(cfg)
+    sleeves = tuple(plan_sleeves(cfg, plan, ()))
+    check_bed(cfg, plan, sleeves, tip_cap_plan(cfg))
+    walls = {name[len("rule_"):].replace("_", "-") for group, names in GROUPS if group == "walls" for name in names}
+    checks = evaluate(cfg, plan, sleeves, walls=())
+    return plan, tuple((r.id, r.status) for r in checks.rules if r.status in ("fail", "warn") and r.id not in walls)
+
+
+def design(cfg: Config, masts: tuple[str, ...] | list[str] = (), plan=None) -> Design:
+    """The whole design, or a ``UserError`` naming what cannot be built (``plan``: this
+    config's plan, when already built)."""
     from generators.plan.bed_fit import check_bed
     from generators.plan.cutlist import cut_list
     from generators.plan.frame import frame_plan
@@ -67,7 +90,7 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = ()) -> Design:
     masts = tuple(masts)
     if cfg.hub.style == "plate":
         return _plate_design(cfg, masts)
-    plan = build_plan(cfg)
+    plan = build_plan(cfg) if plan is None else plan
     sleeves = tuple(plan_sleeves(cfg, plan, masts))
     series = drill_series(cfg)
     mclass = material_class(cfg.hub.material)

@@ -22,7 +22,7 @@ def binding(result: SizingResult, o: Outcome) -> list[dict]:
             row["refusal"] = "smallest value on the grid"
             out.append(row)
             continue
-        below = space(space.step(o.point, i, -1))
+        below = space.complete(space.step(o.point, i, -1))
         row["below"] = below.values[i]
         row["refusal"] = below.refusal
         for rid in below.failed:
@@ -49,8 +49,8 @@ def sensitivity(result: SizingResult, o: Outcome) -> list[dict]:
     space = result.space(o)
     rows = []
     for i, d in enumerate(result.dims):
-        up = space(space.step(o.point, i, +1))
-        down = space(space.step(o.point, i, -1)) if o.point[i] > d.lowest else None
+        up = space.complete(space.step(o.point, i, +1))
+        down = space.complete(space.step(o.point, i, -1)) if o.point[i] > d.lowest else None
         rows.append({
             "key": d.key, "value": o.values[i],
             "step": None if up.refusal == "outside the grid" else up.values[i] - o.values[i],

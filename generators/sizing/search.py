@@ -39,6 +39,7 @@ class Outcome:
     objective: float | None = None
     lowest_sf: float | None = None
     design: object = None  # the Design, when design() accepted the point
+    partial: bool = False  # failed before its walls were measured: ``failed`` may lack wall rules
 
     def key(self) -> tuple:
         inf = math.inf
@@ -72,8 +73,15 @@ class Space:
             self.seen[point] = self._evaluate(point)
         return self.seen[point]
 
-    def _evaluate(self, point: tuple[int, ...]) -> Outcome:
-        from generators.design import design
+    def complete(self, point: tuple[int, ...]) -> Outcome:
+        """The outcome with every rule judged (its walls measured too), for explaining it."""
+        point = tuple(point)
+        if self(point).partial:
+            self.seen[point] = self._evaluate(point, full=True)
+        return self.seen[point]
+
+    def _evaluate(self, point: tuple[int, ...], full: bool = False) -> Outcome:
+        from generators.design import design, failing_before_walls
 
         from generators.standards.materials import get_material
 
@@ -82,7 +90,13 @@ class Space:
             return Outcome(mat, point, tuple(math.nan for _ in point), False, refusal="outside the grid")
         values = tuple(d.value(k) for d, k in zip(self.dims, point))
         try:
-            d = design(parse_config(self.data(point)))
+            cfg = parse_config(self.data(point))
+            plan, early = failing_before_walls(cfg)
+            bad = tuple(i for i, status in early if status == "fail"
+                        or (self.strict and status == "warn" and i not in self.ignored))
+            if bad and not full:  # fails whatever its walls: not worth measuring them
+                return Outcome(plan.material, point, values, False, bad, partial=True)
+            d = design(cfg, plan=plan)
         except UserError as exc:
             return Outcome(mat, point, values, False, refusal=exc.line())
         checks = d.checks_json
@@ -233,6 +247,9 @@ def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str
     if result.minimal:
         result.best = result.minimal[0]
         return result
+    for s in result.spaces.values():  # nothing passed: judge the attempts in full to name what fails
+        for p in [p for p, o in s.seen.items() if o.partial]:
+            s.complete(p)
     tried = [o for s in result.spaces.values() for o in s.seen.values()]
     buildable = [o for o in tried if o.refusal is None]
     if buildable:
