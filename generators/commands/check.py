@@ -1,4 +1,4 @@
-"""``hubwright check [CONFIG] [--json]``: design rules and wind loads, without solids.
+"""``hubwright check [CONFIG] [--json] [--mast SIZE ...]``: design rules and wind loads, without solids.
 
 Exit 0 when no rule fails, 1 when one does, 2 for bad input or an unbuildable design.
 Only the config, standards and plan layers are imported, so it starts fast.
@@ -21,6 +21,8 @@ CAUTION = ("The wind figures are an estimate, not a structural certification: fo
 def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("config", nargs="?", metavar="CONFIG", help="config file (default: the metric demo)")
     p.add_argument("--json", action="store_true", help="print the results as JSON")
+    p.add_argument("--mast", metavar="SIZE", action="append", default=[],
+                   help="also check a reducer sleeve for this mast, as build --mast makes it (repeatable)")
 
 
 def wind_lines(wind: dict, units: str) -> list[str]:
@@ -82,7 +84,7 @@ def run(args: argparse.Namespace) -> int:
 
     path = args.config or str(default_config())
     cfg = load_config(path)
-    checks = design(cfg).checks_json
+    checks = design(cfg, tuple(args.mast or ())).checks_json
     bad = failed(checks)
     if args.json:
         json.dump(checks, sys.stdout, indent=2)

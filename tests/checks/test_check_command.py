@@ -88,3 +88,18 @@ def test_build_cli_exits_1_and_writes_nothing(tmp_path):
     assert p.returncode == 1
     assert "socket-wall" in p.stderr and "--force" in p.stderr
     assert not (tmp_path / "out" / "hex-portable-50").exists()
+
+
+def test_mast_checks_the_sleeve_build_would_make():
+    # the sleeve is bore less fit (0.1 mm) outside, mast OD plus clearance inside, as the
+    # reducer planner makes it; its wall graded against 1.5 mm minimum, 3 mm recommended
+    # (common practice)
+    p = hubwright("check", str(METRIC), "--json", "--mast", "40 mm")
+    assert p.returncode == 0, p.stderr
+    rule = next(r for r in json.loads(p.stdout)["rules"] if r["id"] == "sleeve-wall")
+    assert rule["status"] == "pass" and "40 mm" in rule["message"]
+    thin = hubwright("check", str(METRIC), "--json", "--mast", "46 mm")
+    assert next(r for r in json.loads(thin.stdout)["rules"] if r["id"] == "sleeve-wall")["status"] == "warn"
+    bad = hubwright("check", str(METRIC), "--mast", "49 mm")
+    assert bad.returncode == 2 and bad.stdout == ""
+    assert bad.stderr.count("\n") == 1 and "--mast" in bad.stderr
