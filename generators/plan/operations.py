@@ -129,14 +129,15 @@ class _Face:
         return pin_breaks_into(h)
 
     def reach(self, drill_mm: float, h: Hole) -> str:
-        """What a drill this deep needs beyond a jobber drill (DIN 338 / 340 flutes, from memory)."""
+        """What a drill this deep needs beyond a jobber drill (DIN 338 / 340 flutes, and ASME
+        B94.11M jobber flutes for the inch drills of an inch config; from memory)."""
         from generators.standards.drill_lengths import flute_length_mm, series_reaching
 
-        length = h.depth_mm
-        jobber = flute_length_mm(drill_mm, "jobber")
+        length, inch = h.depth_mm, self.units == "in"
+        jobber = flute_length_mm(drill_mm, "jobber", inch)
         if jobber is None or length <= jobber + 1e-9:
             return ""
-        series = series_reaching(drill_mm, length)
+        series = series_reaching(drill_mm, length, inch)
         if series == "long":
             return (f"deeper than a jobber drill's {self.L(jobber)} of flute: use a long-series drill"
                     f" ({self.L(flute_length_mm(drill_mm, 'long'))} of flute)")

@@ -1,5 +1,6 @@
 """How deep a twist drill reaches: flute length by diameter for the jobber series and the long
-series (data/drill_lengths.csv, DIN 338 / DIN 340 / DIN 345, from memory)."""
+series (data/drill_lengths.csv, DIN 338 / DIN 340 / DIN 345, from memory); inch drills to 1/2 in
+take the ASME B94.11M jobber lengths (series ``jobber_in``, from memory)."""
 
 from __future__ import annotations
 
@@ -9,18 +10,21 @@ SERIES_ORDER = ("jobber", "long")
 SERIES_WORDS = {"jobber": "jobber-length", "long": "long-series (DIN 340 / extra-length)"}
 
 
-def flute_length_mm(diameter_mm: float, series: str = "jobber") -> float | None:
-    """Flute length of a drill of this diameter in the series, or None beyond the table."""
-    for row in table("drill_lengths.csv"):
-        if row["series"] == series and row["over_mm"] < diameter_mm <= row["to_mm"] + 1e-9:
-            return row["flute_mm"]
+def flute_length_mm(diameter_mm: float, series: str = "jobber", inch: bool = False) -> float | None:
+    """Flute length of a drill of this diameter in the series, or None beyond the table
+    (``inch``: an inch drill, whose jobber length is ASME B94.11M's where tabulated)."""
+    names = ("jobber_in", "jobber") if inch and series == "jobber" else (series,)
+    for name in names:
+        for row in table("drill_lengths.csv"):
+            if row["series"] == name and row["over_mm"] < diameter_mm <= row["to_mm"] + 1e-9:
+                return row["flute_mm"]
     return None
 
 
-def series_reaching(diameter_mm: float, depth_mm: float) -> str | None:
+def series_reaching(diameter_mm: float, depth_mm: float, inch: bool = False) -> str | None:
     """The shortest series whose flutes reach ``depth_mm``, or None when none does."""
     for series in SERIES_ORDER:
-        flute = flute_length_mm(diameter_mm, series)
+        flute = flute_length_mm(diameter_mm, series, inch)
         if flute is not None and depth_mm <= flute + 1e-9:
             return series
     return None

@@ -34,3 +34,19 @@ def test_hand_tap_reach_is_its_length_less_the_wrench_square(thread, overall_mm)
 
     # DIN 371 (metric) and ASME B94.9 (inch) overall lengths, from memory
     assert hand_tap_reach_mm(thread) == pytest.approx(overall_mm - TAP_GRIP_MM)
+
+
+# ASME B94.11M jobber flute lengths of fractional drills (from memory of the makers' charts that
+# reprint it); a number or letter drill takes the fractional size below it (the shorter flute)
+@pytest.mark.parametrize("d_in,flute_in", [(1 / 8, 1 + 5 / 8), (1 / 4, 2.75), (3 / 8, 3 + 5 / 8), (1 / 2, 4.5),
+                                           (0.201, 2 + 5 / 16), (0.221, 2.5), (0.257, 2.75)])
+def test_inch_jobber_flute_lengths_asme_b94_11m(d_in, flute_in):
+    assert flute_length_mm(d_in * 25.4, "jobber", inch=True) == pytest.approx(flute_in * 25.4, abs=1e-3)
+
+
+def test_inch_drills_past_half_an_inch_and_metric_drills_keep_din():
+    assert flute_length_mm(0.75 * 25.4, "jobber", inch=True) == flute_length_mm(0.75 * 25.4, "jobber")
+    assert flute_length_mm(6.0, "jobber") == 57  # DIN 338, unchanged for a metric drill
+    # a #2 drill (0.221 in) 2.25 in deep: a jobber drill reaches by ASME B94.11M, not by DIN 338
+    assert series_reaching(0.221 * 25.4, 2.25 * 25.4, inch=True) == "jobber"
+    assert series_reaching(0.221 * 25.4, 2.25 * 25.4) == "long"
