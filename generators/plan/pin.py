@@ -58,8 +58,15 @@ def pin_holes(p, sockets: list[Hole], holes: list[Hole]) -> list[Hole]:
         else:
             raise UserError("mast_pin.azimuth", f"no azimuth between sockets at {p.fmt(z)} above the bottom"
                             " face has its opposite end between sockets too, clear of the sockets and clamp"
-                            f" holes ({order[0]:g} deg {why[order[0]]})", _fix(p, places))
+                            f" holes ({_tried(order, why)})", _fix(p, places))
     return [_hole(p, mp, az, z, r, drill, dia, places)]
+
+
+def _tried(order: list[float], why: dict, shown: int = 3) -> str:
+    """Why each azimuth tried is blocked: the first few, then how many more."""
+    text = "; ".join(f"{a:g} deg {why[a]}" for a in order[:shown])
+    more = len(order) - shown
+    return text + (f"; and {more} more azimuth{'s' if more > 1 else ''}, each blocked" if more > 0 else "")
 
 
 def _extras_ahead(p) -> list[Hole]:
