@@ -157,10 +157,21 @@ class _Printer(PocketSearch):
                     continue  # they meet by design (socket into bore, set screw into socket)
                 gap = d - self._reach(h1) - self._reach(h2)
                 if gap < self.wall - 1e-6:
-                    raise UserError("print.line_width", f"holes {h1.id} and {h2.id} leave a printed wall of"
+                    raise UserError(self._web_key(h1, h2), f"holes {h1.id} and {h2.id} leave a printed wall of"
                                     f" {self.fmt(max(gap, 0))}", f"at least {MIN_WALL_LINES} lines ="
                                     f" {self.fmt(self.wall)}: a narrower line_width, less hole_compensation"
                                     " or the holes further apart")
+
+    def _web_key(self, *holes: Hole) -> str:
+        """The key of the hole a builder would move (a pin, an extra hole, a clamp screw),
+        else the print setting that sets the least wall."""
+        ids = [x.id for x in self.cfg.holes]
+        for kind, key in (("pin", "mast_pin.height"), ("extra", None), ("clamp", "mast_clamp"),
+                          ("set_screw", "set_screws")):
+            for h in holes:
+                if h.kind == kind:
+                    return key or (f"holes[{ids.index(h.id)}].at" if h.id in ids else "holes")
+        return "print.line_width"
 
     @staticmethod
     def _reach(h: Hole) -> float:

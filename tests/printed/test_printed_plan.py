@@ -122,3 +122,12 @@ def test_machined_plan_is_unchanged_by_the_print_section():
     plan = build_plan(load_config(TILTED))
     assert all(h.profile == "round" and h.compensation_mm == 0 for h in plan.holes)
     assert not [h for h in plan.holes if h.kind.endswith("_pocket")]
+
+
+def test_a_pin_too_near_a_socket_names_the_pin_height(cfg):
+    # the M8 pin raised to 15.5 mm comes within 1.71 mm of socket S1 in the print, under the
+    # four 0.45 mm lines (1.8 mm, common practice) a printed wall wants: move the pin
+    moved = cfg.model_copy(update={"mast_pin": cfg.mast_pin.model_copy(update={"height": 15.5})})
+    with pytest.raises(UserError) as err:
+        build_plan(moved)
+    assert err.value.key == "mast_pin.height" and "printed wall" in err.value.problem
