@@ -39,6 +39,8 @@ def pin_holes(p, sockets: list[Hole], holes: list[Hole]) -> list[Hole]:
     places = _places(p)
     if mp.azimuth is not None:
         az = mp.azimuth % 360
+        if p.body.style == "puck":  # a round rim is square to a pin at any azimuth
+            places.update({az: ("rim", p.body.outer_radius_mm), (az + 180) % 360: ("rim", p.body.outer_radius_mm)})
         hit = _clash(p, az, z, r, places, sockets, others)
         if hit:
             raise UserError("mast_pin.azimuth", f"{mp.azimuth:g} deg {hit}", _fix(p, places))
@@ -117,7 +119,8 @@ def _height(p, mp, r: float, drill) -> float:
 
 def _places(p) -> dict:
     """Azimuth -> (face id, distance of the face from the mast axis) where a pin can enter
-    square to the face; on a puck every gap and socket azimuth of the rim."""
+    square to the face; on a puck every gap and socket azimuth of the rim (and any azimuth
+    the config gives)."""
     if p.body.style == "puck":
         R = p.body.outer_radius_mm
         step = 180 / p.N

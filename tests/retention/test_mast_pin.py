@@ -368,3 +368,14 @@ def test_clamps_placed_by_the_planner_leave_a_given_pin_azimuth_free():
     az = math.degrees(math.atan2(clamp.entry_mm[1], clamp.entry_mm[0])) % 360
     assert min(abs((az - e + 180) % 360 - 180) for e in (30, 210)) > 1.0
     assert des.plan.hole("P1").note.startswith("through bolt across the hub and the mast at 30 deg")
+
+
+def test_a_puck_takes_a_pin_at_any_azimuth_it_is_given():
+    # a round rim is square to the pin anywhere: 15 deg is neither a gap nor a socket azimuth
+    d = planned(hub={"style": "puck", "diameter": 170, "sides": None, "across_flats": None},
+                mast_pin={"thread": "M8", "height": 37.5, "azimuth": 15})
+    h = d.plan.hole("P1")
+    assert h.face == "rim" and h.exit_face == "rim"
+    # entry on the 85 mm rim at 15 deg (plane geometry)
+    assert h.entry_mm[0] == pytest.approx(85 * math.cos(math.radians(15)), abs=1e-6)
+    assert h.entry_mm[1] == pytest.approx(85 * math.sin(math.radians(15)), abs=1e-6)
