@@ -163,6 +163,9 @@ def plan_sleeve(cfg: Config, plan: HubPlan, spec: Reducer, key: str = "reducers[
         # printed holes come out small by about the line width's squeeze (print.hole_compensation)
         id_ += cfg.print.hole_compensation
     wall = (od - id_) / 2
+    if abs(mast.od_mm - plan.mast_od_mm) < 1e-6:
+        raise UserError(key, f"the {fmt(mast.od_mm)} mast ({mast.designation}) is this hub's own mast:"
+                        " it goes in the bore with no sleeve", "a smaller mast than the config's [mast] size")
     if wall < MIN_SLEEVE_WALL_MM - 1e-9:
         largest = largest_mast_mm(bore, fit, id_ - mast.od_mm)
         raise UserError(key, f"the {fmt(mast.od_mm)} mast ({mast.designation}) cannot take a sleeve in"

@@ -148,11 +148,11 @@ def tapped_extra_screw(thread: str, engaged_mm: float, fmt, start_mm: float = 0.
 def clearance_screw(thread: str, depth_mm: float, head: str, counterbore_mm: float, units: str, fmt) -> Screw:
     """A screw through a clearance hole, with a washer and a hex nut under the far face.
 
-    ``head``: ``flat`` (countersunk, its length measured over the head, which sits flush),
-    ``socket`` (in a counterbore ``counterbore_mm`` deep) or ``pan`` (on the face). The least
-    length reaches through the hub, the washer and the nut with two pitches past it (common
-    practice); the stock length is the first at or over it plus what the screw clamps
-    (terminal lugs and their washers), which only the builder knows."""
+    ``head``: ``flat`` (countersunk, its length measured overall, head included, as it sits
+    flush), ``socket`` (in a counterbore ``counterbore_mm`` deep) or ``pan`` (on the face). The
+    least length reaches through the hub, the washer and the nut with two pitches past it
+    (common practice); the stock length named is the first at or over it, and the note says
+    what it leaves for the terminal lugs, which go between the washer and the nut."""
     from generators.standards.fasteners import cap_screw_lengths, hex_nut
     from generators.standards.threads import parse_thread
     from generators.standards.ubolts import plain_washer
@@ -160,19 +160,25 @@ def clearance_screw(thread: str, depth_mm: float, head: str, counterbore_mm: flo
     t = parse_thread(thread)
     grip = depth_mm - (counterbore_mm if head == "socket" else 0.0)
     try:
-        washer, washer_std = plain_washer(t).thickness_mm, "a plain washer"
+        w = plain_washer(t)
+        washer, washer_text = w.thickness_mm, f"a {fmt(w.thickness_mm)} plain washer ({w.standard})"
     except UserError:
-        washer, washer_std = 0.0, "no washer (none tabulated for this size)"
+        washer, washer_text = 0.0, "no washer (none tabulated for this size)"
     nut = hex_nut(t)
     need = grip + washer + nut.height_mm + 2 * t.pitch_mm
-    over = {"flat": "over the head, which sits flush in the countersink",
-            "socket": "under the head, from the counterbore's floor", "pan": "under the head"}[head]
+    over = {"flat": "overall length, head included (a flat head is measured so)",
+            "socket": "length under the head, from the counterbore's floor", "pan": "length under the head"}[head]
+    kind = {"flat": "flat head screw", "socket": "socket head cap screw", "pan": "pan or hex head screw"}[head]
     stock = [x for x in cap_screw_lengths(t) if x >= need - 1e-6]
-    shortest = (f"; {fmt(stock[0])} is the shortest stock length that does, before the lugs"
-                if stock else "; longer than the stock table: threaded rod and two nuts")
-    note = (f"length {over}: at least {fmt(need)} ({fmt(grip)} of hub, {washer_std}, a"
-            f" {fmt(nut.height_mm)} hex nut and two threads past it) plus the terminal lugs and"
-            f" washers it clamps{shortest}")
-    kind = {"flat": "flat head screw", "socket": "socket head cap screw", "pan": "screw"}[head]
-    return Screw(designation=f"{t.designation} {kind}", kind="screw", thread=t.designation, length_mm=None,
-                 standard=f"{kind}; nut {nut.standard}", note=note)
+    if stock:
+        designation = f"{_designation(t.designation, stock[0], units)} {kind}"
+        lugs = (f"; the terminal lugs go under the hub between the washer and the nut: {fmt(stock[0])}"
+                f" leaves {fmt(stock[0] - need)} for them, a longer stock length for more, and one more"
+                f" nut height ({fmt(nut.height_mm)}) for a second nut to lock them")
+    else:
+        designation = f"{t.designation} {kind}"
+        lugs = "; longer than the stock table: threaded rod with a nut at each end"
+    note = (f"{over}: at least {fmt(need)} ({fmt(grip)} of hub, {washer_text}, a {fmt(nut.height_mm)}"
+            f" hex nut and two threads past it){lugs}; stainless or brass outdoors")
+    return Screw(designation=designation, kind="screw", thread=t.designation,
+                 length_mm=stock[0] if stock else None, standard=f"{kind}; nut {nut.standard}", note=note)

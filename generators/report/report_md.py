@@ -293,8 +293,9 @@ def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
             continue
         cb = f"; counterbore {md.L(h.counterbore.diameter_mm)} across, {md.L(h.counterbore.depth_mm)} deep" \
             if h.counterbore is not None and h.kind == "clamp" else ""
-        what = "mast clamp: " if h.kind == "clamp" else ""
-        by.setdefault((what + s.standard, s.designation, s.note + cb), []).append(h.id)
+        what = {"clamp": "mast clamp: ", "pin": "mast through bolt: "}.get(h.kind, "")
+        item = what + (f"{s.kind} ({s.standard})" if h.kind == "pin" else s.standard)
+        by.setdefault((item, s.designation, s.note + cb), []).append(h.id)
     for (item, size, note), ids in by.items():
         rows.append([str(len(ids)), item, size, f"{note} ({', '.join(ids)})"])
         if "+ hex nut" in size:
@@ -310,7 +311,7 @@ def fastener_rows(cfg, plan: HubPlan, checks, md: _Md) -> list[list[str]]:
         spec = specs.get(h.id)
         clear = spec.clearance.designation if spec is not None and spec.clearance is not None else None
         if clear and h.screw is not None:  # through a clearance hole: its length from the plan
-            key = (h.screw.standard.split(";")[0] + " + washer + hex nut", clear, h.screw.note)
+            key = (h.screw.standard.split(";")[0] + " + washer + hex nut", h.screw.designation, h.screw.note)
         elif h.screw is not None:
             key = ("screw into a tapped hole" if h.thread else "screw + captive nut or insert", h.screw.designation,
                    h.screw.note)

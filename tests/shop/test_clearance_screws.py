@@ -31,10 +31,11 @@ def test_conduit_demo_countersunk_terminal_screw_length():
     plan = design(load_config(ROOT / "configs" / "four-spreader-conduit.toml")).plan
     h = plan.hole("FP1")
     need_in = 2.25 + 0.049 + 0.125 + 2 / 24  # hub + washer + nut + two pitches
-    assert h.screw is not None and "flat head" in h.screw.designation
+    assert h.screw is not None and h.screw.designation == "#10-24 UNC x 2-3/4 in flat head screw"
     assert f"at least {need_in:.3f} in" in h.screw.note
-    assert "2.750 in is the shortest stock length" in h.screw.note  # 2.5 in is short by 0.007 in
-    assert "over the head" in h.screw.note
+    assert h.screw.length_mm == pytest.approx(2.75 * IN)  # 2.5 in is short by 0.007 in
+    assert f"leaves {2.75 - need_in:.3f} in for them" in h.screw.note  # room for the lugs
+    assert "head included" in h.screw.note
 
 
 @pytest.mark.parametrize("head, cb, grip", [("flat", 0.0, 30.0), ("socket", 6.0, 24.0), ("pan", 0.0, 30.0)])
@@ -43,7 +44,8 @@ def test_metric_lengths_by_head(head, cb, grip):
     need = grip + 1.0 + 4.7 + 2 * 0.8
     assert f"at least {need:.3f} mm" in s.note
     stock = [x for x in (5, 6, 8, 10, 12, 16, 20, 25, 30, 35, 40, 45, 50) if x >= need][0]
-    assert f"{stock:.3f} mm is the shortest stock length" in s.note
+    assert s.length_mm == stock and s.designation.startswith(f"M5x0.8 x {stock} mm")
+    assert f"leaves {stock - need:.3f} mm for them" in s.note
 
 
 def test_blind_clearance_hole_names_no_length():

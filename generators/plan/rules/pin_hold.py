@@ -112,11 +112,11 @@ def pin_retention(rules, wind, pin, sf_warn: float) -> RuleResult:
     f = rules.fmt
     extra = "".join(f"; {k} {_F(v, _u)}" for k, v in hold.limits.items()
                     if k not in ("bolt shear", "bearing on the hub"))
-    on = f" on the {hold.mast} sleeve's mast" if hold.mast else ""
+    on = f" with the {hold.mast} in its sleeve" if hold.mast else ""
     what = (f"{thread.designation} through bolt ({grade}, {_F(hold.shear_n, _u)} in shear per plane;"
             f" bearing on the {rules.mat.name} {_S(hold.bearing_mpa, _u)} x {f(hold.d_mm)} x"
             f" {f(hold.bearing_len_mm)} = {_F(hold.bearing_n, _u)}{extra}; {hold.governs} governs) holds"
-            f"{on} {_F(hold.slide_n, _u)} along the mast and {_M(hold.torque_nm, _u)} about it"
+            f" {_F(hold.slide_n, _u)} along the mast and {_M(hold.torque_nm, _u)} about it{on}"
             f" (2 F x r, r = {f(r_m)})")
     mast = wind.mast
     if mast is None:
