@@ -91,14 +91,23 @@ class WallRules(RulesBase):
                               f" {self.fmt(self.far)} of material around it", self._src())
         w = found[0]
         status, limit = _grade(w.mm, self.min_wall, rec)
-        other = f"the {w.b[5:]} face" if w.b.startswith("face:") else w.b
-        msg = f"{w.a} to {other}: {self.fmt(w.mm)} of material{self._profile_note(w.a, w.b)}"
+        msg = f"{w.a} to {self._other(w)}: {self.fmt(w.mm)} of material{self._profile_note(w.a, w.b)}"
         if status != PASS:
-            pin = "pin" in (self._kind(w.a), self._kind(w.b))
-            move = "a mast_pin.height above or below the sockets" if pin else "move the hole"
+            thin = [x for x in found if x.mm < rec - 1e-9]
+            pins = ["pin" in (self._kind(x.a), self._kind(x.b)) for x in thin]
+            move = ("a mast_pin.height above or below the sockets" if all(pins) else
+                    "move the hole" + (" (the pin: a mast_pin.height above or below the sockets)" if any(pins) else ""))
             msg += (f"; want at least {self.fmt(rec)} (minimum {self.fmt(self.min_wall)}): {move},"
                     " a smaller thread or a larger or thicker hub")
+            more = [f"{x.a} to {self._other(x)} {self.fmt(x.mm)}" for x in thin[1:]]
+            if more:
+                msg += (f"; also under {self.fmt(rec)}: {', '.join(more[:4])}"
+                        + (f" and {len(more) - 4} more" if len(more) > 4 else ""))
         return RuleResult("hole-wall", status, w.mm, limit, "mm", msg, self._src())
+
+    @staticmethod
+    def _other(w) -> str:
+        return f"the {w.b[5:]} face" if w.b.startswith("face:") else w.b
 
     def _pocket_face(self, w) -> bool:
         from generators.plan.kinds import POCKET_KINDS
