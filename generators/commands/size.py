@@ -70,8 +70,10 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
     lines = [f"{cfg.name}: sized {', '.join(d.key for d in dims)} ({result.objective};"
              f" {result.evaluations} designs checked)", ""]
     lines += [f"  {d.key} = {_fmt(v, d.kind, units)}" for d, v in zip(dims, best.values)]
-    sf = "-" if best.lowest_sf is None else f"{best.lowest_sf:.2f}"
-    warns = [r["id"] for r in best.design.checks_json["rules"] if r["status"] == "warn"]
+    rules = best.design.checks_json["rules"]
+    sfs = [(r["value"], r["id"]) for r in rules if r["unit"] == "SF" and r["value"] is not None]
+    sf = "-" if not sfs else f"{min(sfs)[0]:.2f} ({min(sfs)[1]})"
+    warns = [r["id"] for r in rules if r["status"] == "warn"]
     was = "refused" if orig_mass is None else f"{orig_mass:.0f} g"
     lines += [f"  material {best.material}, about {best.mass_g:.0f} g (the config: {was}),"
               f" lowest safety factor {sf}", f"  wrote {target}"]
@@ -82,6 +84,12 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
     if fixed:
         lines.append(f"  warns whatever the hub's size in this space: {', '.join(fixed)} (--strict leaves"
                      " them: the fix is outside the hub, see check)")
+    start = result.space(best)(tuple(d.start for d in dims))
+    if start.design is not None:
+        before = {r["id"] for r in start.design.checks_json["rules"] if r["status"] == "warn"}
+        new = [w for w in warns if w not in before]
+        if new:
+            lines.append(f"  new warnings, not given by the config's own values: {', '.join(new)}")
     lines += ["", "what binds (one step smaller):"]
     for row in rec["binding"]:
         d = next(x for x in dims if x.key == row["key"])
@@ -90,7 +98,10 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
             continue
         at = f"  {row['key']} at {_fmt(row['below'], d.kind, units)}: "
         if row["refusal"]:
-            lines.append(at + f"refused: {row['refusal']}")
+            key = row["refusal"].split(":", 1)[0]
+            held = ("" if any(key == x.key for x in dims) or " " in key
+                    else f" ({key} is held at the config's value: change it to go smaller)")
+            lines.append(at + f"refused: {row['refusal']}{held}")
         for r in row["rules"]:
             verb = "warns" if r.get("status") == "warn" else "fails"
             lines.append(at + f"{r['id']} {verb} ({figure(r['below'], r['unit'], units)} against"
@@ -116,6 +127,7 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
     if result.objective == "stock":
         from generators.sizing.stock import SOURCE
         lines.append(f"  stock sizes: {SOURCE}")
+    lines += ["", f"next: hubwright check {target} (read its warnings), then hubwright build {target}"]
     return lines + ["", CAUTION]
 
 

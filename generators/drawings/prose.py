@@ -72,9 +72,9 @@ class SheetProse:
         for h in self.holes:
             x, y = pos[h.id]
             if h.countersink is not None:
-                cs = f"csk {h.countersink.angle_deg:g} deg to {coord(h.countersink.diameter_mm, u)}"
+                cs = f"csk {h.countersink.angle_deg:g} deg to {coord(h.countersink.diameter_mm, u)} {u}"
             elif h.counterbore is not None:
-                cs = f"cbore {coord(h.counterbore.diameter_mm, u)} x {coord(h.counterbore.depth_mm, u)}"
+                cs = f"cbore {coord(h.counterbore.diameter_mm, u)} x {coord(h.counterbore.depth_mm, u)} {u}"
             else:
                 cs = "-"
             t = tilts.get(h.id)
