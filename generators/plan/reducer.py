@@ -219,7 +219,10 @@ def _through_sleeve_screw(hub_hole: Hole, sleeve_hole: Hole, gap_mm: float, fmt)
     ``CLAMP_PASS_MM`` (generators/plan/screws.py)."""
     from generators.plan.screws import CLAMP_PASS_MM, sleeve_clamp_length
 
-    thread = hub_hole.thread or ""
+    # a printed clamp hole holds its screw in a captive nut: the screw's own thread
+    thread = hub_hole.thread or (hub_hole.screw.thread if hub_hole.screw is not None else None)
+    if not thread:
+        return "the clamp screw passes through the sleeve to the mast: a screw long enough to reach it"
     cbore = hub_hole.counterbore.depth_mm if hub_hole.counterbore is not None else 0.0
     reach = hub_hole.depth_mm + sleeve_hole.depth_mm + gap_mm + CLAMP_PASS_MM
     length, words = sleeve_clamp_length(thread, reach, cbore, fmt)

@@ -164,12 +164,20 @@ def clearance_screw(thread: str, depth_mm: float, head: str, counterbore_mm: flo
         washer, washer_text = w.thickness_mm, f"a {fmt(w.thickness_mm)} plain washer ({w.standard})"
     except UserError:
         washer, washer_text = 0.0, "no washer (none tabulated for this size)"
-    nut = hex_nut(t)
+    try:
+        nut = hex_nut(t)
+    except UserError:  # no nut tabulated: the builder sizes it from the nut in hand
+        return Screw(designation=f"{t.designation} screw", kind="screw", thread=t.designation, length_mm=None,
+                     standard="machine screw; hex nut", note=f"length: {fmt(grip)} of hub, a washer, the nut"
+                     " and two threads past it, plus the terminal lugs (no nut of this size in the tables)")
     need = grip + washer + nut.height_mm + 2 * t.pitch_mm
     over = {"flat": "overall length, head included (a flat head is measured so)",
             "socket": "length under the head, from the counterbore's floor", "pan": "length under the head"}[head]
     kind = {"flat": "flat head screw", "socket": "socket head cap screw", "pan": "pan or hex head screw"}[head]
-    stock = [x for x in cap_screw_lengths(t) if x >= need - 1e-6]
+    try:
+        stock = [x for x in cap_screw_lengths(t) if x >= need - 1e-6]
+    except UserError:  # no stock lengths tabulated for this size
+        stock = []
     if stock:
         designation = f"{_designation(t.designation, stock[0], units)} {kind}"
         lugs = (f"; the terminal lugs go under the hub between the washer and the nut: {fmt(stock[0])}"
@@ -177,7 +185,8 @@ def clearance_screw(thread: str, depth_mm: float, head: str, counterbore_mm: flo
                 f" nut height ({fmt(nut.height_mm)}) for a second nut to lock them")
     else:
         designation = f"{t.designation} {kind}"
-        lugs = "; longer than the stock table: threaded rod with a nut at each end"
+        lugs = ("; no stock length in the tables reaches: a screw to order, or (a plain hole) threaded rod"
+                " with a nut at each end")
     note = (f"{over}: at least {fmt(need)} ({fmt(grip)} of hub, {washer_text}, a {fmt(nut.height_mm)}"
             f" hex nut and two threads past it){lugs}; stainless or brass outdoors")
     return Screw(designation=designation, kind="screw", thread=t.designation,

@@ -103,3 +103,11 @@ def test_mast_checks_the_sleeve_build_would_make():
     bad = hubwright("check", str(METRIC), "--mast", "49 mm")
     assert bad.returncode == 2 and bad.stdout == ""
     assert bad.stderr.count("\n") == 1 and "--mast" in bad.stderr
+
+
+def test_mast_on_a_printed_hub_with_captive_clamp_nuts():
+    # the printed clamp hole has no tapped thread (its nut holds the screw): the sleeve note
+    # takes the screw's own thread
+    p = hubwright("check", str(ROOT / "configs" / "six-spreader-printed.toml"), "--json", "--mast", "30 mm")
+    assert p.returncode in (0, 1), p.stderr
+    assert "30 mm" in next(r for r in json.loads(p.stdout)["rules"] if r["id"] == "sleeve-wall")["message"]

@@ -54,3 +54,10 @@ def test_blind_clearance_hole_names_no_length():
     data["holes"] = [{"id": "X1", "face": "top", "at": [45.0, -30.0], "clearance": "M5", "depth": 10}]
     h = design(parse_config(data)).plan.hole("X1")
     assert h.screw is None
+
+
+@pytest.mark.parametrize("thread", ["M14", "M2", "#12-24"])
+def test_a_size_without_stock_lengths_is_still_a_hole(thread):
+    # no cap-screw lengths tabulated for these: the hole stands, the note gives the least length
+    s = clearance_screw(thread, 40.0, "flat", 0.0, "mm", _fmt)
+    assert s.length_mm is None and "at least" in s.note and "no stock length" in s.note
