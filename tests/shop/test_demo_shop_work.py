@@ -73,8 +73,10 @@ def test_the_rest_of_a_part_threaded_hole_is_a_clearance_hole(path):
 
 @pytest.mark.parametrize("path", MACHINED, ids=lambda p: p.stem)
 def test_no_drill_past_jobber_reach_without_a_longer_series_named(path):
-    """DIN 338 jobber flute lengths (from memory): deeper holes name the longer drill."""
+    """DIN 338 jobber flute lengths (ASME B94.11M for an inch config's drills; from memory):
+    deeper holes name the longer drill."""
     d = _design(path)
+    inch = d.config.units == "in"
     checked = 0
     for op in d.operations:
         if op.operation not in ("pilot", "drill") or op.tool_diameter_mm is None:
@@ -82,7 +84,7 @@ def test_no_drill_past_jobber_reach_without_a_longer_series_named(path):
         depth = op.depth_mm
         if op.through:
             depth = max(d.plan.hole(h).depth_mm for h in op.holes)
-        flute = jobber_flute_mm(op.tool_diameter_mm)
+        flute = jobber_flute_mm(op.tool_diameter_mm, inch)
         if flute is None or depth is None or depth <= flute:
             continue
         checked += 1
