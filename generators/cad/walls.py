@@ -50,16 +50,17 @@ def measure_solid_wall(solid: cq.Shape, plan: HubPlan) -> dict:
     refs = sorted(k for k in groups if k != "unassigned")
     comp = {k: cq.Compound.makeCompound(groups[k]) for k in refs}
     boxes = {k: comp[k].BoundingBox() for k in refs}
+    # nearest boxes first, so the least wall is found early and the box gap (a lower bound
+    # of the distance) passes over every pair that cannot beat it
+    pairs = sorted((_box_gap(boxes[a], boxes[b]), a, b) for i, a in enumerate(refs) for b in refs[i + 1:]
+                   if _walled(a, b, holes, plan))
     best = (float("inf"), None, None)
-    for i, a in enumerate(refs):
-        for b in refs[i + 1:]:
-            if not _walled(a, b, holes, plan):
-                continue
-            if _box_gap(boxes[a], boxes[b]) >= best[0]:
-                continue
-            d = comp[a].distance(comp[b])
-            if d < best[0]:
-                best = (d, a, b)
+    for gap, a, b in pairs:
+        if gap >= best[0]:
+            break
+        d = comp[a].distance(comp[b])
+        if d < best[0]:
+            best = (d, a, b)
     mm, a, b = best
     return {"min_wall_mm": None if a is None else round(mm, 3), "between": [a, b] if a else [],
             "unassigned_faces": len(groups.get("unassigned", []))}
