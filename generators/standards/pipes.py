@@ -92,4 +92,8 @@ def resolve_mast(value, key: str = "mast.size", units: str = "mm") -> MastSize:
         od = length_mm(value, key, units)
     if od <= 0:
         raise UserError(key, f"mast diameter must be positive, got {value!r}", ACCEPTED)
+    if units == "in":  # named in the config's own units
+        from generators.units import format_length
+
+        return MastSize(f"{format_length(od, 'in')} tube", od, "tube", None)
     return MastSize(f"{od:g} mm tube", od, "tube", None)

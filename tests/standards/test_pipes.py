@@ -51,3 +51,10 @@ def test_nps_did_you_mean():
     with pytest.raises(UserError) as err:
         resolve_mast("1-1/3 NPS")
     assert "'1-1/4'" in str(err.value)
+
+
+def test_a_plain_tube_is_named_in_the_configs_units():
+    # 1 in = 25.4 mm exactly (international inch); an inch config's plain tube reads in inches
+    assert resolve_mast("1-1/4", units="in").designation == "1-1/4 in tube"
+    assert resolve_mast("1-1/4", units="in").od_mm == 31.75
+    assert resolve_mast("38 mm").designation == "38 mm tube"
