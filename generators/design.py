@@ -48,24 +48,32 @@ class Design:
         return [op.record() for op in self.operations]
 
 
+def _hub_parts(cfg: Config, masts: tuple[str, ...], plan):
+    """The plan (built unless given), its sleeves, the tip cap and the print-bed fits: what
+    every rule needs before a wall is measured."""
+    from generators.plan.bed_fit import check_bed
+    from generators.plan.hub import build_plan
+    from generators.plan.reducer import plan_sleeves
+    from generators.plan.tipcap import tip_cap_plan
+
+    plan = build_plan(cfg) if plan is None else plan
+    sleeves = tuple(plan_sleeves(cfg, plan, masts))
+    tip_cap = tip_cap_plan(cfg)
+    return plan, sleeves, tip_cap, check_bed(cfg, plan, sleeves, tip_cap)
+
+
 def failing_before_walls(cfg: Config) -> tuple[object, tuple[tuple[str, str], ...]]:
     """The plan (None for a plate) and (rule id, status) of the rules that fail or warn
     before a wall is measured: every rule but the walls' group, with the hard limits but the
     walls'. A design with any failing here fails ``check`` whatever its walls; the sizing
     search uses it to pass over such designs without measuring them (``design(cfg,
     plan=...)`` then goes on from the same plan). Raises ``UserError`` as ``design()`` does."""
-    from generators.plan.bed_fit import check_bed
-    from generators.plan.hub import build_plan
-    from generators.plan.reducer import plan_sleeves
-    from generators.plan.rules import GROUPS, evaluate
-    from generators.plan.tipcap import tip_cap_plan
+    from generators.plan.rules import evaluate, group_ids
 
     if cfg.hub.style == "plate":
         return None, ()
-    plan = build_plan(cfg)
-    sleeves = tuple(plan_sleeves(cfg, plan, ()))
-    check_bed(cfg, plan, sleeves, tip_cap_plan(cfg))
-    walls = {name[len("rule_"):].replace("_", "-") for group, names in GROUPS if group == "walls" for name in names}
+    plan, sleeves, _, _ = _hub_parts(cfg, (), None)
+    walls = group_ids("walls")
     checks = evaluate(cfg, plan, sleeves, walls=())
     return plan, tuple((r.id, r.status) for r in checks.rules if r.status in ("fail", "warn") and r.id not in walls)
 
@@ -73,30 +81,23 @@ def failing_before_walls(cfg: Config) -> tuple[object, tuple[tuple[str, str], ..
 def design(cfg: Config, masts: tuple[str, ...] | list[str] = (), plan=None) -> Design:
     """The whole design, or a ``UserError`` naming what cannot be built (``plan``: this
     config's plan, when already built)."""
-    from generators.plan.bed_fit import check_bed
     from generators.plan.cutlist import cut_list
     from generators.plan.frame import frame_plan
     from generators.plan.holes import material_class
-    from generators.plan.hub import build_plan
     from generators.plan.jig import jig_plans, jig_reason
     from generators.plan.measured_walls import measure_walls
     from generators.plan.operations import plan_operations
-    from generators.plan.reducer import plan_sleeves
     from generators.plan.rules import evaluate
     from generators.plan.shop import drill_series
     from generators.plan.sleeve_faces import sleeve_as_plan
-    from generators.plan.tipcap import tip_cap_plan
 
     masts = tuple(masts)
     if cfg.hub.style == "plate":
         return _plate_design(cfg, masts)
-    plan = build_plan(cfg) if plan is None else plan
-    sleeves = tuple(plan_sleeves(cfg, plan, masts))
+    plan, sleeves, tip_cap, bed_fits = _hub_parts(cfg, masts, plan)
     series = drill_series(cfg)
     mclass = material_class(cfg.hub.material)
     sleeve_plans = tuple((s, sleeve_as_plan(plan, s)) for s in sleeves)
-    tip_cap = tip_cap_plan(cfg)
-    bed_fits = check_bed(cfg, plan, sleeves, tip_cap)
     walls = tuple(measure_walls(plan))
     checks = evaluate(cfg, plan, sleeves, walls)
     cut_cases = tuple(cut_list(cfg, plan, sleeves))

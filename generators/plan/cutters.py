@@ -56,7 +56,6 @@ class Cutter:
             x, y = _basis(hole.axis)
             self.x, self.y = np.array(x), np.array(y)
             self.half = np.array(_half_section(hole, t0, t1))
-            self.rt = self.half.copy()  # (radius, depth), closed along the axis: for distances
             # the closed section mirrored about the axis, for exact distances on both sides
             self.section = np.concatenate([self.half, self.half[::-1] * np.array([-1.0, 1.0])])
             self.t0, self.t1, self.revolved = t0, self.half[:, 1].max(), True
@@ -72,7 +71,7 @@ class Cutter:
         """Signed distance of points (N, 3) to the cut (negative inside)."""
         t, q = self._local(pts)
         if self.revolved and not self.plain:
-            return poly_sdf(np.stack([np.hypot(q[:, 0], q[:, 1]), t], axis=1), self.rt, axis_closed=True)
+            return poly_sdf(np.stack([np.hypot(q[:, 0], q[:, 1]), t], axis=1), self.half, axis_closed=True)
         if self.revolved:
             d2 = np.hypot(q[:, 0], q[:, 1]) - self.hole.radius_mm
         else:
@@ -96,7 +95,7 @@ class Cutter:
             if self.plain:
                 d2, n2 = rho - self.hole.radius_mm, None
             else:
-                d, n = poly_nearest(np.stack([rho, t], axis=1), self.rt, axis_closed=True)
+                d, n = poly_nearest(np.stack([rho, t], axis=1), self.half, axis_closed=True)
                 return d, self._to_world(q, rho, n[:, 0], n[:, 1])
         elif self.roof is not None:
             rho = np.hypot(q[:, 0], q[:, 1])

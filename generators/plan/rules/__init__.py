@@ -32,6 +32,11 @@ GROUPS = (
     ("retention", ("rule_mast_retention", "rule_split_clamp")),  # after the wind estimate: it needs its loads
 )
 WITH_WIND = ("rule_mast_retention", "rule_split_clamp")
+
+
+def group_ids(group: str) -> frozenset[str]:
+    """The rule ids of one group (each ``rule_x_y`` method returns rule ``x-y``)."""
+    return frozenset(name[len("rule_"):].replace("_", "-") for g, names in GROUPS if g == group for name in names)
 RULES = tuple(name for _, names in GROUPS for name in names)
 
 
