@@ -31,6 +31,18 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
     p.add_argument("--strict", action="store_true",
                    help="treat warnings as failures (size to the recommended figures)")
     p.add_argument("--json", action="store_true", help="print the result as JSON")
+    p.add_argument("--jobs", type=_jobs, default=None, metavar="N",
+                   help="designs judged at once (default: one per core; 1: one after another)")
+
+
+def _jobs(text: str) -> int:
+    try:
+        n = int(text)
+    except ValueError:
+        n = 0
+    if n < 1:
+        raise argparse.ArgumentTypeError(f"--jobs must be a whole number of 1 or more, not {text!r}")
+    return n
 
 
 def _load(args):
@@ -159,15 +171,23 @@ def _get(cfg, key: str):
 
 
 def run(args: argparse.Namespace) -> int:
-    from generators.sizing import size
-    from generators.sizing.explain import candidates, record
+    from generators.sizing.parallel import Judges
     from generators.sizing.space import dimensions
-    from generators.sizing.write import check_target, target_for, write_sized
+    from generators.sizing.write import check_target, target_for
 
     path, cfg, raw, mats = _load(args)
     dims = dimensions(cfg, raw, args.vary, args.objective)
     check_target(path, target_for(path))
-    result = size(raw, cfg.units, dims, mats, args.objective, args.strict)
+    with Judges(args.jobs) as judges:
+        return _search(args, path, cfg, raw, mats, dims, judges)
+
+
+def _search(args, path, cfg, raw, mats, dims, judges) -> int:
+    from generators.sizing import size
+    from generators.sizing.explain import candidates, prefetch, record
+    from generators.sizing.write import target_for, write_sized
+
+    result = size(raw, cfg.units, dims, mats, args.objective, args.strict, judges)
     if result.best is None:
         data = _unmet(result, cfg)
         if args.json:
@@ -182,7 +202,9 @@ def run(args: argparse.Namespace) -> int:
                   (f"refused: {a['refusal']}" if a["refusal"] else "fails " + ", ".join(a["failed"])))
         return 1
     best = result.best
-    records = [record(result, c) for c in candidates(result)]
+    shown = candidates(result)  # before the points around them are judged (they may pass too)
+    prefetch(result, shown)
+    records = [record(result, c) for c in shown]
     summary = [f"{d.key} = {_fmt(v, d.kind, cfg.units)}" for d, v in zip(dims, best.values)]
     summary.append(f"objective {result.objective}: about {best.mass_g:.0f} g in {best.material}")
     data = result.space(best).data(best.point)

@@ -10,6 +10,7 @@ on, and a hole near that crease is no nearer an edge than it is to the next free
 from __future__ import annotations
 
 import math
+import weakref
 
 from generators.plan.geometry import Pt, dot, point_segment_distance_2d
 from generators.plan.model import Face, HubPlan
@@ -30,8 +31,24 @@ def _shares(face: Face, p, q) -> bool:
     return any(close(p, c) for c in pts) and any(close(q, c) for c in pts)
 
 
+_CACHE: dict[tuple[int, int], tuple[weakref.ref, Face, list]] = {}
+
+
 def free_edges(plan: HubPlan, face: Face) -> list[tuple[Pt, Pt]]:
-    """The face's outline edges (in face coordinates) where the material ends."""
+    """The face's outline edges (in face coordinates) where the material ends (kept per
+    plan and face: the placement rules ask for every hole)."""
+    key = (id(plan), id(face))
+    got = _CACHE.get(key)
+    if got is not None and got[0]() is plan and got[1] is face:
+        return got[2]
+    edges = _free_edges(plan, face)
+    if len(_CACHE) > 1024:
+        _CACHE.clear()
+    _CACHE[key] = (weakref.ref(plan), face, edges)
+    return edges
+
+
+def _free_edges(plan: HubPlan, face: Face) -> list[tuple[Pt, Pt]]:
     if face.kind == "rim":
         C, T = face.outline[1][0], face.outline[2][1]
         return [((0.0, 0.0), (C, 0.0)), ((0.0, T), (C, T))]  # the seam at u = 0 is no edge

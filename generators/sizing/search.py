@@ -62,6 +62,7 @@ class Space:
         self.material, self.objective, self.strict = material, objective, strict
         self.seen: dict[tuple[int, ...], Outcome] = {}
         self.ignored: frozenset[str] = frozenset()  # warns --strict cannot lift (see hub_independent)
+        self.judges = None  # a parallel.Judges: several points judged at once
 
     def data(self, point: tuple[int, ...]) -> dict:
         extra = {"hub.material": self.material} if self.material else {}
@@ -80,13 +81,32 @@ class Space:
             self.seen[point] = self._evaluate(point, full=True)
         return self.seen[point]
 
+    @property
+    def width(self) -> int:
+        """How many points are judged at once (one per core with judges)."""
+        return self.judges.width if self.judges is not None else 1
+
+    def many(self, points, full: bool = False) -> list[Outcome]:
+        """The outcomes of several points (``full``: as ``complete``), judged in parallel."""
+        points = [tuple(p) for p in points]
+        todo = [p for p in dict.fromkeys(points) if not self._outside(p)
+                and (p not in self.seen or (full and self.seen[p].partial))]
+        if len(todo) > 1 and self.width > 1:
+            state = (self.raw, self.units, self.dims, self.material, self.objective, self.strict, self.ignored)
+            for p, o in zip(todo, self.judges.map(state, todo, full)):
+                self.seen[p] = o
+        return [self.complete(p) if full else self(p) for p in points]
+
+    def _outside(self, point: tuple[int, ...]) -> bool:
+        return any(k < d.lowest or (d.highest is not None and k > d.highest) for d, k in zip(self.dims, point))
+
     def _evaluate(self, point: tuple[int, ...], full: bool = False) -> Outcome:
         from generators.design import design, failing_before_walls
 
         from generators.standards.materials import get_material
 
         mat = get_material(self.material or self.raw.get("hub", {}).get("material", "hdpe")).id
-        if any(k < d.lowest or (d.highest is not None and k > d.highest) for d, k in zip(self.dims, point)):
+        if self._outside(point):
             return Outcome(mat, point, tuple(math.nan for _ in point), False, refusal="outside the grid")
         values = tuple(d.value(k) for d, k in zip(self.dims, point))
         try:
@@ -142,39 +162,92 @@ class Space:
         return tuple(p)
 
     def descend(self, start: tuple[int, ...], order) -> tuple[int, ...]:
+        """One descent (see ``descents``)."""
+        return self.descents(start, [order])[0]
+
+    def descents(self, start: tuple[int, ...], orders) -> list[tuple[int, ...]]:
+        """A descent from ``start`` for each order of the dimensions, run side by side: each
+        round judges the next points of every descent at once (in parallel with judges)."""
+        w = max(1, self.width // len(orders))  # spare judges go to cutting brackets finer
+        runs = [self._descent(start, order, w) for order in orders]
+        found: list = [None] * len(runs)
+        pending = {}
+        for k, run in enumerate(runs):
+            pending[k] = next(run)
+        while pending:
+            outcomes = iter(self.many([p for pts in pending.values() for p in pts]))
+            ahead = {}
+            for k, pts in pending.items():
+                try:
+                    ahead[k] = runs[k].send([next(outcomes) for _ in pts])
+                except StopIteration as done:
+                    found[k] = done.value
+            pending = ahead
+        return found
+
+    def _descent(self, start, order, w: int):
         """Bisect each dimension down to its least passing value; repeat until none moves.
         Later passes, where a value has moved little if at all, step down 1, 2, 4 ... until
-        one fails and bisect only that bracket (one design when nothing moved)."""
+        one fails and bisect only that bracket (one design when nothing moved). A generator:
+        it yields the points it needs judged (``w`` at a time: the bracket cut in more parts,
+        the steps down taken together) and is sent their outcomes."""
         x = list(start)
         for n_pass in range(MAX_PASSES):
             moved = False
+            if n_pass and w > 1:  # the points a pass that moves nothing asks for, at once
+                yield [self.step(tuple(x), i, -1) for i in order if x[i] > self.dims[i].lowest]
             for i in order:
-                hi, lo = x[i], self.dims[i].lowest
-                if hi <= lo:
+                hi, low = x[i], self.dims[i].lowest
+                if hi <= low:
                     continue
+                base = tuple(x)
+
+                def at(k, i=i, base=base):
+                    return self.step(base, i, k - base[i])
+
                 if n_pass:
-                    lo, jump = None, 1
-                    while lo is None and hi > self.dims[i].lowest:
-                        k = max(self.dims[i].lowest, hi - jump)
-                        if self(self.step(tuple(x), i, k - x[i])).ok:
-                            hi, jump = k, jump * 2
-                        else:
-                            lo = k
-                    lo = hi if lo is None else lo
-                if n_pass == 0 and self(self.step(tuple(x), i, lo - hi)).ok:
-                    hi = lo
+                    hi = yield from self._gallop(at, hi, low, w)
                 else:
-                    while hi - lo > 1:
-                        mid = (hi + lo) // 2
-                        if self(self.step(tuple(x), i, mid - x[i])).ok:
-                            hi = mid
-                        else:
-                            lo = mid
+                    hi = yield from self._least(at, low - 1, hi, w, first=low)
                 if hi != x[i]:
                     x[i], moved = hi, True
             if not moved:
                 break
         return tuple(x)
+
+    @staticmethod
+    def _least(at, a: int, b: int, w: int, first: int | None = None):
+        """The least passing value in ``(a, b]``: ``b`` passes, ``a`` fails (or is off the
+        grid); ``first`` is judged in the first round (the grid's end, which may pass)."""
+        while b - a > 1:
+            if first is not None:
+                probes, first = [first] + ([(a + b) // 2] if w > 1 else []), None
+            else:
+                probes = [a + (b - a) * j // (w + 1) for j in range(1, w + 1)]
+            probes = sorted({k for k in probes if a < k < b})
+            oks = [o.ok for o in (yield [at(k) for k in probes])]
+            passing = [k for k, ok in zip(probes, oks) if ok]
+            if passing:
+                b = min(passing)
+            a = max([a] + [k for k, ok in zip(probes, oks) if not ok and k < b])
+        return b
+
+    @classmethod
+    def _gallop(cls, at, hi: int, low: int, w: int):
+        """Step down from a passing ``hi`` by 1, 2, 4 ... (``w`` steps a round) to the first
+        failure, then bisect that bracket."""
+        jump = 1
+        while hi > low:
+            probes = sorted({max(low, hi - jump * 2 ** j) for j in range(w)}, reverse=True)
+            oks = [o.ok for o in (yield [at(k) for k in probes])]
+            fail = next((k for k, ok in zip(probes, oks) if not ok), None)
+            passing = [k for k, ok in zip(probes, oks) if ok and (fail is None or k > fail)]
+            if passing:
+                hi = min(passing)
+            if fail is not None:
+                return (yield from cls._least(at, fail, hi, w))
+            jump *= 2 ** w
+        return hi
 
     def grow(self, start: tuple[int, ...]) -> tuple[int, ...] | None:
         """A passing point at or above ``start``: all dimensions grown together, then one at a time."""
@@ -184,9 +257,11 @@ class Space:
         for i in range(len(self.dims)):
             for f in GROW:
                 tries.append(self.step(start, i, self._grown(start[i], self.dims[i], f) - start[i]))
-        for p in tries:
-            if self(p).ok:
-                return p
+        for lo in range(0, len(tries), self.width):  # the first in this order that passes
+            chunk = tries[lo:lo + self.width]
+            for p, o in zip(chunk, self.many(chunk)):
+                if o.ok:
+                    return p
         return None
 
     @staticmethod
@@ -196,8 +271,8 @@ class Space:
 
     def minimal(self, point: tuple[int, ...]) -> bool:
         """One step less in every dimension (where the grid has one) does not pass."""
-        return all(not self(self.step(point, i, -1)).ok
-                   for i, d in enumerate(self.dims) if point[i] > d.lowest)
+        below = [self.step(point, i, -1) for i, d in enumerate(self.dims) if point[i] > d.lowest]
+        return not any(o.ok for o in self.many(below))
 
 
 @dataclass
@@ -222,8 +297,9 @@ class SizingResult:
 
 
 def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str] | None = None,
-         objective: str = "mass", strict: bool = False) -> SizingResult:
-    """Search every material's space (``None``: the config's own material)."""
+         objective: str = "mass", strict: bool = False, judges=None) -> SizingResult:
+    """Search every material's space (``None``: the config's own material); ``judges``
+    (a ``parallel.Judges``) judges several points at once."""
     result = SizingResult(dims, objective, None)
     n = len(dims)
     # each dimension leads once (up to three), else forwards and backwards
@@ -231,6 +307,7 @@ def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str
               else [tuple(range(n)), tuple(reversed(range(n)))])
     for mat in materials or [None]:
         space = Space(raw, units, dims, mat, objective, strict)
+        space.judges = judges
         start = tuple(d.start for d in dims)
         if strict:
             space.ignored = space.hub_independent(start)
@@ -240,7 +317,7 @@ def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str
         if start is None:
             result.spaces[space(tuple(d.start for d in dims)).material] = space
             continue
-        found = {space.descend(start, order) for order in orders}
+        found = set(space.descents(start, orders))
         result.spaces[space(start).material] = space
         result.minimal += [space(p) for p in found if space.minimal(p)]
     result.minimal.sort(key=Outcome.key)
@@ -248,8 +325,7 @@ def size(raw: dict, units: str, dims: tuple[Dimension, ...], materials: list[str
         result.best = result.minimal[0]
         return result
     for s in result.spaces.values():  # nothing passed: judge the attempts in full to name what fails
-        for p in [p for p, o in s.seen.items() if o.partial]:
-            s.complete(p)
+        s.many([p for p, o in s.seen.items() if o.partial], full=True)
     tried = [o for s in result.spaces.values() for o in s.seen.values()]
     buildable = [o for o in tried if o.refusal is None]
     if buildable:

@@ -1,0 +1,87 @@
+"""Judging several sizing points at once, on every core.
+
+The workers are forked from the sizing process when it first asks for several points, so
+after its imports (nothing is loaded again), and judge one point per task with the same
+``Space`` code: a result is the same whichever process made it. They ignore SIGINT (the
+command's handler stops the pool and ends the run) and die with the parent however it
+dies. Where fork is not available, or there is one core, points are judged one after
+another.
+"""
+
+from __future__ import annotations
+
+import contextlib
+import os
+import signal
+from multiprocessing import get_all_start_methods, get_context
+
+
+def cores() -> int:
+    try:
+        return len(os.sched_getaffinity(0))
+    except AttributeError:  # not on every platform
+        return os.cpu_count() or 1
+
+
+def _worker() -> None:
+    from threadpoolctl import threadpool_limits
+
+    from generators import signals
+
+    signals.forked_child()
+    signal.signal(signal.SIGINT, signal.SIG_IGN)
+    # numpy's BLAS would start a thread per core in every worker: one each is what is free
+    threadpool_limits(limits=1)
+
+
+def _judge(state: tuple, point: tuple[int, ...], full: bool):
+    from generators.sizing.search import Space
+
+    raw, units, dims, material, objective, strict, ignored = state
+    space = Space(raw, units, dims, material, objective, strict)
+    space.ignored = ignored
+    return space._evaluate(point, full)
+
+
+class Judges:
+    """Up to ``jobs`` forked workers (default: every core), as a context manager."""
+
+    def __init__(self, jobs: int | None = None):
+        self.jobs = max(1, cores() if jobs is None else jobs)
+        if "fork" not in get_all_start_methods():
+            self.jobs = 1
+        self.pool = None
+
+    def __enter__(self) -> "Judges":
+        return self
+
+    def __exit__(self, *exc) -> None:
+        self.stop()
+
+    def _kill(self) -> None:
+        """On a signal: end the workers at once (no locks taken; they die with us anyway)."""
+        for proc in list(getattr(self.pool, "_pool", ())):
+            with contextlib.suppress(OSError, TypeError):
+                os.kill(proc.pid, signal.SIGKILL)
+
+    def stop(self) -> None:
+        from generators import signals
+
+        if self.pool is not None:
+            signals.unregister(self._kill)
+            self.pool.terminate()
+            self.pool.join()
+            self.pool = None
+
+    @property
+    def width(self) -> int:
+        """How many points are worth judging at once."""
+        return self.jobs
+
+    def map(self, state: tuple, points: list[tuple[int, ...]], full: bool) -> list:
+        from generators import signals
+
+        if self.pool is None:
+            self.pool = get_context("fork").Pool(self.jobs, initializer=_worker)
+            signals.register(self._kill)
+        return self.pool.starmap(_judge, [(state, p, full) for p in points], chunksize=1)
