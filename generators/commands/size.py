@@ -32,7 +32,7 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
                    help="treat warnings as failures (size to the recommended figures)")
     p.add_argument("--json", action="store_true", help="print the result as JSON")
     p.add_argument("--jobs", type=_jobs, default=None, metavar="N",
-                   help="designs judged at once (default: one per core; 1: one after another)")
+                   help="designs judged at once (default and most: one per core; 1: one after another)")
 
 
 def _jobs(text: str) -> int:

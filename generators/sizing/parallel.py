@@ -44,10 +44,11 @@ def _judge(state: tuple, point: tuple[int, ...], full: bool):
 
 
 class Judges:
-    """Up to ``jobs`` forked workers (default: every core), as a context manager."""
+    """Up to ``jobs`` forked workers (default and most: one per core; more would only share
+    the cores and hold more memory), as a context manager."""
 
     def __init__(self, jobs: int | None = None):
-        self.jobs = max(1, cores() if jobs is None else jobs)
+        self.jobs = max(1, min(cores(), cores() if jobs is None else jobs))
         if "fork" not in get_all_start_methods():
             self.jobs = 1
         self.pool = None
