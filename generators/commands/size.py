@@ -41,7 +41,7 @@ def _jobs(text: str) -> int:
     except ValueError:
         n = 0
     if n < 1:
-        raise argparse.ArgumentTypeError(f"--jobs must be a whole number of 1 or more, not {text!r}")
+        raise argparse.ArgumentTypeError(f"a whole number of 1 or more is accepted, not {text!r}")
     return n
 
 

@@ -61,12 +61,15 @@ def write_sized(data: dict, config: Path, summary: list[str]) -> Path:
     data = dict(data, name=sized_name(str(data["name"])))
     body = text(data, config, summary)
     parse_config(tomllib.loads(body))  # what was written loads as a config
-    fd, tmp = tempfile.mkstemp(prefix=".sized-", suffix=".toml", dir=target.parent)
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8") as fh:
-            fh.write(body)
-        os.replace(tmp, target)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
+    from generators import signals
+
+    with signals.held():  # a signal here would end the process with the temporary file left
+        fd, tmp = tempfile.mkstemp(prefix=".sized-", suffix=".toml", dir=target.parent)
+        try:
+            with os.fdopen(fd, "w", encoding="utf-8") as fh:
+                fh.write(body)
+            os.replace(tmp, target)
+        except BaseException:
+            Path(tmp).unlink(missing_ok=True)
+            raise
     return target
