@@ -15,6 +15,8 @@ import os
 import signal
 from multiprocessing import get_all_start_methods, get_context
 
+LEAVE_S = 10.0  # how long a worker has to leave a closed pool before it is killed
+
 
 def cores() -> int:
     try:
@@ -66,13 +68,24 @@ class Judges:
                 os.kill(proc.pid, signal.SIGKILL)
 
     def stop(self) -> None:
+        """Let the workers leave as a pool closes (each takes its end-of-work mark); one that
+        has not left after ``LEAVE_S`` is killed. Not ``terminate``: its SIGTERM runs a Python
+        handler, which a worker waiting on the task queue's lock may never get to run."""
         from generators import signals
 
-        if self.pool is not None:
-            signals.unregister(self._kill)
-            self.pool.terminate()
-            self.pool.join()
-            self.pool = None
+        if self.pool is None:
+            return
+        signals.unregister(self._kill)
+        pool, self.pool = self.pool, None
+        workers = list(getattr(pool, "_pool", ()))
+        pool.close()
+        for proc in workers:
+            proc.join(timeout=LEAVE_S)
+        for proc in workers:
+            if proc.is_alive():
+                with contextlib.suppress(OSError):
+                    os.kill(proc.pid, signal.SIGKILL)
+        pool.join()
 
     @property
     def width(self) -> int:
