@@ -36,12 +36,7 @@ def _worker() -> None:
     threadpool_limits(limits=1)
 
 
-def _judge(state: tuple, point: tuple[int, ...], full: bool):
-    from generators.sizing.search import Space
-
-    raw, units, dims, material, objective, strict, ignored = state
-    space = Space(raw, units, dims, material, objective, strict)
-    space.ignored = ignored
+def _judge(space, point: tuple[int, ...], full: bool):
     return space._evaluate(point, full)
 
 
@@ -92,10 +87,11 @@ class Judges:
         """How many points are worth judging at once."""
         return self.jobs
 
-    def map(self, state: tuple, points: list[tuple[int, ...]], full: bool) -> list:
+    def map(self, space, points: list[tuple[int, ...]], full: bool) -> list:
+        """``space._evaluate`` of each point, in the workers (the space goes without its cache)."""
         from generators import signals
 
         if self.pool is None:
             self.pool = get_context("fork").Pool(self.jobs, initializer=_worker)
             signals.register(self._kill)
-        return self.pool.starmap(_judge, [(state, p, full) for p in points], chunksize=1)
+        return self.pool.starmap(_judge, [(space, p, full) for p in points], chunksize=1)

@@ -81,6 +81,10 @@ class Space:
             self.seen[point] = self._evaluate(point, full=True)
         return self.seen[point]
 
+    def __getstate__(self) -> dict:
+        """What a worker needs to judge a point: not the points seen, not the pool."""
+        return dict(self.__dict__, seen={}, judges=None)
+
     @property
     def width(self) -> int:
         """How many points are judged at once (one per core with judges)."""
@@ -92,8 +96,7 @@ class Space:
         todo = [p for p in dict.fromkeys(points) if not self._outside(p)
                 and (p not in self.seen or (full and self.seen[p].partial))]
         if len(todo) > 1 and self.width > 1:
-            state = (self.raw, self.units, self.dims, self.material, self.objective, self.strict, self.ignored)
-            for p, o in zip(todo, self.judges.map(state, todo, full)):
+            for p, o in zip(todo, self.judges.map(self, todo, full)):
                 self.seen[p] = o
         return [self.complete(p) if full else self(p) for p in points]
 
@@ -160,10 +163,6 @@ class Space:
         p = list(point)
         p[i] += by
         return tuple(p)
-
-    def descend(self, start: tuple[int, ...], order) -> tuple[int, ...]:
-        """One descent (see ``descents``)."""
-        return self.descents(start, [order])[0]
 
     def descents(self, start: tuple[int, ...], orders) -> list[tuple[int, ...]]:
         """A descent from ``start`` for each order of the dimensions, run side by side: each
