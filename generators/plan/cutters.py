@@ -63,6 +63,25 @@ class Cutter:
             self.plain = (hole.point_deg is None
                           and all(abs(rho - hole.radius_mm) < 1e-12 for rho, _ in self.half[1:-1]))
 
+    def _cylinder(self) -> tuple[float, float, float]:
+        """(radius, first depth, last depth) of a cylinder about the axis holding the cut."""
+        if getattr(self, "_cyl", None) is None:
+            if self.revolved:
+                self._cyl = (float(self.half[:, 0].max()), self.t0, float(self.half[:, 1].max()))
+            else:
+                self._cyl = (float(np.hypot(self.section[:, 0], self.section[:, 1]).max()), self.t0, self.t1)
+        return self._cyl
+
+    def bound(self, pts: np.ndarray) -> np.ndarray:
+        """A lower bound of ``sdf``: the signed distance to the cylinder holding the cut."""
+        R, lo, hi = self._cylinder()
+        d = pts - self.E
+        t = d @ self.a
+        rho = np.sqrt(np.maximum(np.einsum("ij,ij->i", d, d) - t * t, 0.0))
+        dr, dt = rho - R, np.maximum(lo - t, t - hi)
+        return np.where((dr <= 0) & (dt <= 0), np.maximum(dr, dt),
+                        np.hypot(np.maximum(dr, 0.0), np.maximum(dt, 0.0)))
+
     def _local(self, pts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         d = pts - self.E
         return d @ self.a, np.stack([d @ self.x, d @ self.y], axis=1)
@@ -208,15 +227,19 @@ class Cutter:
         return self._box
 
     def sdf_or_box(self, pts: np.ndarray, margin: float = 1.0) -> np.ndarray:
-        """The signed distance where a point is within ``margin`` of the cutter's box, else the
-        distance to the box: a lower bound of the same (positive) sign, for the many tests
-        that only ask whether a point is inside a cut."""
+        """The signed distance where a point is within ``margin`` of the cut's holding cylinder
+        (``bound``), else the distance to its box or to that cylinder: a lower bound of the
+        same (positive) sign, for the many tests that only ask whether a point is inside a cut."""
         lo, hi = self.bounds()
         gap = np.maximum(np.maximum(lo - pts, pts - hi), 0.0)
         out = np.sqrt(np.einsum("ij,ij->i", gap, gap))
-        near = out <= margin
-        if near.any():
-            out[near] = self.sdf(pts[near])
+        near = np.nonzero(out <= margin)[0]
+        if len(near):
+            b = self.bound(pts[near])
+            out[near] = b
+            close = near[b <= margin]
+            if len(close):
+                out[close] = self.sdf(pts[close])
         return out
 
 

@@ -89,13 +89,20 @@ class _Body:
         found for the nearest of them are measured in full."""
         h = self.face_distance(face, pts)
         k0 = int(np.argmin(h))
-        bound = float(self.region_distance(face, pts[k0:k0 + 1])[0])
-        idx = np.nonzero(h < bound)[0]
+        best, best_k = float(self.region_distance(face, pts[k0:k0 + 1])[0]), k0
+        idx = np.nonzero(h < best)[0]
         if not len(idx):
-            return bound, k0
-        d = self.region_distance(face, pts[idx])
-        k = int(np.argmin(d))
-        return (float(d[k]), int(idx[k])) if d[k] < bound else (bound, k0)
+            return best, best_k
+        idx = idx[np.argsort(h[idx])]
+        for lo in range(0, len(idx), 512):  # nearest the plane first, until none can come nearer
+            part = idx[lo:lo + 512]
+            if h[part[0]] >= best:
+                break
+            d = self.region_distance(face, pts[part])
+            k = int(np.argmin(d))
+            if d[k] < best:
+                best, best_k = float(d[k]), int(part[k])
+        return best, best_k
 
     def inside(self, pts: np.ndarray) -> np.ndarray:
         return self.depth(pts) >= -INSIDE_EPS_MM
@@ -276,9 +283,10 @@ def _to_exposed(pts: np.ndarray, j: int, cutters: list[Cutter], body: _Body, clo
     to its true shape where the nearest point of that shape is a surface of the part, else
     to its exposed samples (where it runs into the bore, a socket or out of the body the
     nearest material is on that rim). Points are taken nearest first and the search stops
-    once no remaining point can come nearer (the distance to the whole shape bounds it)."""
+    once no remaining point can come nearer (the distance to the cylinder holding the shape
+    bounds it)."""
     c = cutters[j]
-    d = c.sdf(pts)
+    d = c.bound(pts)
     order = np.argsort(d)
     partners = [o for k, o in enumerate(cutters) if k != j and meets_by_design(c.hole, o.hole)]
     best, best_k = np.inf, int(order[0]) if len(order) else 0

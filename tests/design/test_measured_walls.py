@@ -166,3 +166,27 @@ def test_a_point_that_would_near_the_bore_gives_a_flat_floor_instead():
     assert s.flat_bottom and s.point_deg is None
     drill = next(o for o in d.operations if "S1" in o.holes and o.operation in ("drill", "open_up"))
     assert "square the floor flat" in drill.note
+
+
+@pytest.mark.parametrize("name", ["four-spreader-conduit", "six-spreader-printed", "five-spreader-aluminium"])
+def test_the_holding_cylinder_never_overstates_a_cuts_distance(name):
+    """The measurer orders and skips points by ``Cutter.bound``; it must be a lower bound of
+    the true signed distance everywhere (inside, outside, past the ends), for round holes
+    with points, countersinks and threads, teardrops and nut slots alike. Geometric
+    consequence of the cut lying inside its cylinder; checked on random points."""
+    import numpy as np
+
+    from generators.config import load_config
+    from generators.plan.cutters import Cutter
+
+    plan = build_plan(load_config(CONFIGS / f"{name}.toml"))
+    rng = np.random.default_rng(7)
+    for h in plan.holes:
+        c = Cutter(h)
+        lo, hi = c.bounds()
+        pts = rng.uniform(lo - 5.0, hi + 5.0, size=(4000, 3))
+        exact, bound = c.sdf(pts), c.bound(pts)
+        assert np.all(bound <= exact + 1e-9), (h.id, float((bound - exact).max()))
+        quick = c.sdf_or_box(pts)
+        # the same sign as the exact distance wherever either is within the margin of the cut
+        assert np.all((quick >= 0) == (exact >= 0)), h.id
