@@ -21,6 +21,7 @@ from generators.plan.sdf2d import poly_nearest, poly_sdf
 # Segments of a teardrop's 270 deg arc when sampling its surface (the samples lie inside the
 # true arc by at most r(1 - cos(2.8 deg)), 0.12 % of the radius; distances to it are exact).
 ARC_POINTS = 48
+_SURFACES: dict[tuple, np.ndarray] = {}  # a shape's surface samples in its own frame
 
 
 def point_depth_mm(hole: Hole) -> float:
@@ -147,7 +148,30 @@ class Cutter:
 
     def surface(self, step: float, near: tuple | None = None) -> np.ndarray:
         """Points on the cutter's surface, about ``step`` apart; with ``near = (point, r)``
-        only those within ``r`` of the point."""
+        only those within ``r`` of the point. The whole surface is laid out once per shape
+        and step in the cut's own frame (a hub's like sockets and screws share it)."""
+        if near is None:
+            key = (self._shape_key(), step)
+            local = _SURFACES.get(key)
+            if local is None:
+                local = self._local_surface(step, None)
+                if len(_SURFACES) > 512:
+                    _SURFACES.clear()
+                _SURFACES[key] = local
+        else:
+            local = self._local_surface(step, near)
+        out = self.E + local @ np.stack([self.a, self.x, self.y])
+        if near is not None and len(out):
+            out = out[np.linalg.norm(out - np.asarray(near[0]), axis=1) <= near[1]]
+        return out
+
+    def _shape_key(self) -> tuple:
+        if self.revolved:
+            return ("revolved", self.half.tobytes())
+        return (self.hole.profile, self.section.tobytes(), self.t0, self.t1, self.hole.depth_mm)
+
+    def _local_surface(self, step: float, near: tuple | None) -> np.ndarray:
+        """``surface`` as (depth along the axis, x, y) in the cut's frame (N, 3)."""
         tp, qp, r = -np.inf, None, np.inf
         if near is not None:
             t_, q_ = self._local(np.asarray(near[0], dtype=float)[None])
@@ -169,8 +193,7 @@ class Cutter:
                 keep = (rho <= r)[k] | (np.abs(dphi) <= reach[k])
                 k, ang = k[keep], ang[keep]
             rk = rho[k]
-            pts.append(self.E + t[k][:, None] * self.a + (rk * np.cos(ang))[:, None] * self.x
-                       + (rk * np.sin(ang))[:, None] * self.y)
+            pts.append(np.stack([t[k], rk * np.cos(ang), rk * np.sin(ang)], axis=1))
         else:
             ring = _walk(self.section, step, closed=True)
             levels = np.linspace(self.t0, self.t1, max(2, int(math.ceil((self.t1 - self.t0) / step)) + 1))
@@ -179,7 +202,8 @@ class Cutter:
             if near is not None:
                 ring = ring[np.hypot(*(ring - qp).T) <= r]
                 levels = levels[np.abs(levels - tp) <= r]
-            pts += [self.E + self.a * t + np.outer(ring[:, 0], self.x) + np.outer(ring[:, 1], self.y) for t in levels]
+            if len(ring) and len(levels):
+                pts.append(np.column_stack([np.repeat(levels, len(ring)), np.tile(ring, (len(levels), 1))]))
             lo, hi = self.section.min(axis=0), self.section.max(axis=0)
             if near is not None:
                 lo, hi = np.maximum(lo, qp - r), np.minimum(hi, qp + r)
@@ -188,12 +212,9 @@ class Cutter:
             grid = grid[self._section_sdf(grid) <= 0] if len(grid) else grid
             for t in (self.t0, self.t1):
                 if abs(t - tp) <= r or near is None:
-                    pts.append(self.E + self.a * t + np.outer(grid[:, 0], self.x) + np.outer(grid[:, 1], self.y))
+                    pts.append(np.column_stack([np.full(len(grid), t), grid]))
         pts = [p for p in pts if len(p)]
-        out = np.concatenate(pts) if pts else np.empty((0, 3))
-        if near is not None and len(out):
-            out = out[np.linalg.norm(out - np.asarray(near[0]), axis=1) <= r]
-        return out
+        return np.concatenate(pts) if pts else np.empty((0, 3))
 
     def lines(self, step: float, near: tuple | None = None):
         """Straight lines lying on the cutter's side, about ``step`` apart round it, as

@@ -251,16 +251,37 @@ def _rims(c: Cutter, partners: list[Cutter], body: _Body, step: float, near) -> 
     li, ki = np.nonzero((g[:, :-1] >= 0) != (g[:, 1:] >= 0))
     if len(li) == 0:
         return np.empty((0, 3))
-    lo, hi = ts[ki].copy(), ts[ki + 1].copy()
-    g_lo = g[li, ki] >= 0
-    for _ in range(max(4, math.ceil(math.log2((ts[1] - ts[0]) / RIM_TOL_MM)))):
-        mid = (lo + hi) / 2
-        p = starts[li] + mid[:, None] * a
-        g_mid = _exposure(p, partners, body) >= 0
-        same = g_mid == g_lo
-        lo, hi = np.where(same, mid, lo), np.where(same, hi, mid)
-    t = np.where(g_lo, lo, hi)  # the outside end: on the exposed side of the rim
+    t = _crossing(starts[li], a, ts[ki], ts[ki + 1], g[li, ki], g[li, ki + 1], partners, body)
     return starts[li] + t[:, None] * a
+
+
+def _crossing(p0, a, lo, hi, g_lo, g_hi, partners, body) -> np.ndarray:
+    """Where ``_exposure`` changes sign on each line ``p0 + t a`` between ``lo`` and ``hi``,
+    to ``RIM_TOL_MM``: the exposed end of the last bracket. Regula falsi (the Illinois
+    variant: the end kept twice has its value halved) narrows each bracket; a bisection step
+    in every third round keeps the worst case within that of bisection alone."""
+    lo, hi, g_lo, g_hi = lo.copy(), hi.copy(), g_lo.copy(), g_hi.copy()
+    out_lo = g_lo >= 0  # which end is on the exposed side (it stays that side)
+    kept = np.zeros(len(lo), dtype=int)  # +1: lo kept last round, -1: hi kept
+    todo = np.nonzero(hi - lo > RIM_TOL_MM)[0]
+    for k in range(60):
+        if not len(todo):
+            break
+        l, h, gl, gh = lo[todo], hi[todo], g_lo[todo], g_hi[todo]
+        denom = gl - gh
+        mid = np.where(np.abs(denom) > 0, l + (h - l) * gl / np.where(np.abs(denom) > 0, denom, 1.0), (l + h) / 2)
+        if k % 3 == 2:
+            mid = (l + h) / 2
+        mid = np.clip(mid, l + 0.1 * RIM_TOL_MM, h - 0.1 * RIM_TOL_MM)
+        gm = _exposure(p0[todo] + mid[:, None] * a, partners, body)
+        side_lo = (gm >= 0) == out_lo[todo]  # the new point replaces the lo end
+        gl_new = np.where(side_lo, gm, np.where(kept[todo] == 1, gl / 2, gl))
+        gh_new = np.where(side_lo, np.where(kept[todo] == -1, gh / 2, gh), gm)
+        lo[todo], hi[todo] = np.where(side_lo, mid, l), np.where(side_lo, h, mid)
+        g_lo[todo], g_hi[todo] = gl_new, gh_new
+        kept[todo] = np.where(side_lo, -1, 1)
+        todo = todo[hi[todo] - lo[todo] > RIM_TOL_MM]
+    return np.where(out_lo, lo, hi)
 
 
 def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float):
