@@ -19,6 +19,9 @@ import sys
 import tempfile
 import time
 
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+from _installed import as_installed  # noqa: E402
+
 ROOT = pathlib.Path(__file__).resolve().parents[1]
 DEMOS = sorted(str(p) for p in (ROOT / "configs").glob("*.toml"))
 TARGET = 0.45
@@ -32,6 +35,7 @@ def _run(configs: list[str], out: pathlib.Path, env: dict | None = None) -> floa
 
 
 def main() -> None:
+    as_installed()
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--runs", type=int, default=1)
     ap.add_argument("--spawn", action="store_true")

@@ -29,6 +29,9 @@ import sys
 import tempfile
 import time
 
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+from _installed import as_installed  # noqa: E402
+
 ROOT = pathlib.Path(__file__).resolve().parents[1]
 CONFIG = ROOT / "benchmarks" / "configs" / "eight-spreader-block.toml"
 TARGET_TIME, TARGET_MEMORY = 1.3, 1.2
@@ -143,6 +146,7 @@ def hubwright_cmd(config: pathlib.Path, out: pathlib.Path) -> list[str]:
 
 
 def main() -> None:
+    as_installed()
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--runs", type=int, default=3)
     ap.add_argument("--config", default=str(CONFIG))

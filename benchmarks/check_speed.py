@@ -12,6 +12,9 @@ import subprocess
 import sys
 import time
 
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+from _installed import as_installed  # noqa: E402
+
 ROOT = pathlib.Path(__file__).resolve().parents[1]
 DEMOS = ("configs/six-spreader-portable.toml", "configs/four-spreader-conduit.toml")
 BUDGET_S = 0.5
@@ -53,6 +56,7 @@ def heavy_modules(config: str) -> str:
 
 
 def main() -> None:
+    as_installed()
     for config in DEMOS:
         p = process_time(config)
         r = rules_time(config)

@@ -17,6 +17,9 @@ import sys
 import tempfile
 import time
 
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+from _installed import as_installed  # noqa: E402
+
 ROOT = pathlib.Path(__file__).resolve().parents[1]
 DEMOS = ("configs/four-spreader-conduit.toml", "configs/six-spreader-portable.toml")
 TARGET_S = 5.0  # "a few seconds" for three dimensions
@@ -35,6 +38,7 @@ def wall(argv: list[str]) -> tuple[float, str]:
 
 
 def main() -> None:
+    as_installed()
     with tempfile.TemporaryDirectory() as tmp:
         for demo in DEMOS:
             cfg = pathlib.Path(shutil.copy(ROOT / demo, tmp))

@@ -9,10 +9,14 @@ whether any heavy module (cadquery, ezdxf, matplotlib, pint, numpy) was imported
 from __future__ import annotations
 
 import argparse
+import pathlib
 import statistics
 import subprocess
 import sys
 import time
+
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+from _installed import as_installed  # noqa: E402
 
 
 def timed(cmd: list[str], runs: int) -> float:
@@ -25,6 +29,7 @@ def timed(cmd: list[str], runs: int) -> float:
 
 
 def main() -> None:
+    as_installed()
     ap = argparse.ArgumentParser()
     ap.add_argument("--runs", type=int, default=7)
     runs = ap.parse_args().runs
