@@ -29,6 +29,7 @@ from generators.plan.kinds import POCKET_KINDS
 from generators.plan.model import Hole, HubPlan
 
 COARSE_MM, FINE_MM, REFINE_BELOW_MM = 1.0, 0.2, 12.0
+REFINE_REACH = 3.0  # fine samples within this many coarse steps of the least points
 INSIDE_EPS_MM = 1e-6
 RIM_TOL_MM = 5e-4  # rims are bisected to this: well under the 0.001 mm walls are reported to
 
@@ -54,6 +55,7 @@ class _Body:
         self._n = np.array([f.normal for f in flat], dtype=float).reshape(-1, 3)
         self._c = np.einsum("ij,ij->i", np.array([f.origin for f in flat], dtype=float).reshape(-1, 3), self._n)
         self._rims = [f.rim_radius_mm for f in self.faces if f.kind == "rim"]
+        self._frames: dict[str, tuple] = {}
 
     def depth(self, pts: np.ndarray) -> np.ndarray:
         """The least ``face_distance`` over every face (positive inside the body)."""
@@ -78,10 +80,28 @@ class _Body:
         if face.kind == "rim":
             z = pts[:, 2]
             return np.hypot(h, np.maximum(np.maximum(z - self.plan.body.thickness_mm, -z), 0.0))
-        d = pts - np.array(face.origin, dtype=float)
-        q = np.stack([d @ np.array(face.u_axis, dtype=float), d @ np.array(face.v_axis, dtype=float)], axis=1)
-        off = np.maximum(poly_sdf(q, np.array(face.outline, dtype=float)), 0.0)
+        origin, uv, outline, box = self._frame(face)
+        q = (pts - origin) @ uv
+        if box is not None:  # a rectangle in (u, v): its distance in closed form
+            gap = np.maximum(np.maximum(box[0] - q, q - box[1]), 0.0)
+            off = np.hypot(gap[:, 0], gap[:, 1])
+        else:
+            off = np.maximum(poly_sdf(q, outline), 0.0)
         return np.hypot(h, off)
+
+    def _frame(self, face):
+        """A side face's origin, (u, v) axes (3, 2), outline, and its (lo, hi) corners when
+        the outline is a rectangle along u and v."""
+        got = self._frames.get(face.id)
+        if got is None:
+            outline = np.array(face.outline, dtype=float)
+            lo, hi = outline.min(axis=0), outline.max(axis=0)
+            on_box = np.all((np.abs(outline - lo) < 1e-9) | (np.abs(outline - hi) < 1e-9), axis=1)
+            box = (lo, hi) if len(outline) == 4 and on_box.all() and len({tuple(r) for r in outline.round(9)}) == 4 else None
+            got = (np.array(face.origin, dtype=float),
+                   np.array([face.u_axis, face.v_axis], dtype=float).T, outline, box)
+            self._frames[face.id] = got
+        return got
 
     def least_to(self, face, pts: np.ndarray) -> tuple[float, int]:
         """The least ``region_distance`` of the points to the face, and which point: only
@@ -181,7 +201,7 @@ def measure_walls(plan: HubPlan) -> list[Wall]:
         c = category(cutters[i].hole, cutters[other].hole if pair else None)
         if w < min(REFINE_BELOW_MM, least[c] + 2 * COARSE_MM):
             if pair:
-                w, at = _refine(cutters[i], i, cutters[other], other, cutters, body, at, w)
+                w, at = _refine(cutters[i], i, cutters[other], other, cutters, body, at, w, exposed[other])
             else:
                 fine = _exposed(cutters[i], i, cutters, body, FINE_MM, near=(at, 2 * COARSE_MM))
                 if len(fine):
@@ -284,12 +304,15 @@ def _crossing(p0, a, lo, hi, g_lo, g_hi, partners, body) -> np.ndarray:
     return np.where(out_lo, lo, hi)
 
 
-def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float):
-    """The wall between two cuts again, from fine samples near the coarse least point,
-    both ways."""
+def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float, cloud_j: np.ndarray):
+    """The wall between two cuts again, from fine samples near the coarse least point on
+    each (on ``j``: its exposed coarse sample nearest that point), both ways."""
     best, where = w, at
-    near = (np.asarray(at), 3 * COARSE_MM + w)
-    fine = {i: _exposed(ci, i, cutters, body, FINE_MM, near=near), j: _exposed(cj, j, cutters, body, FINE_MM, near=near)}
+    at = np.asarray(at, dtype=float)
+    partner = cloud_j[int(np.argmin(np.einsum("ij,ij->i", cloud_j - at, cloud_j - at)))] if len(cloud_j) else at
+    reach = REFINE_REACH * COARSE_MM
+    fine = {i: _exposed(ci, i, cutters, body, FINE_MM, near=(at, reach)),
+            j: _exposed(cj, j, cutters, body, FINE_MM, near=(partner, reach))}
     for src, dst in ((i, j), (j, i)):
         if len(fine[src]) == 0:
             continue
