@@ -39,17 +39,19 @@ def main() -> None:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--runs", type=int, default=1)
     ap.add_argument("--spawn", action="store_true")
+    ap.add_argument("--configs", nargs="+", metavar="TOML", help="these configs instead of every demo")
     args = ap.parse_args()
+    demos = [str(pathlib.Path(c).resolve()) for c in args.configs] if args.configs else DEMOS
     work = pathlib.Path(tempfile.mkdtemp(prefix="hubwright-batch-"))
     try:
         singles, batches, spawned = [], [], []
         for i in range(args.runs):
-            singles.append(sum(_run([c], work / f"s{i}") for c in DEMOS))
-            batches.append(_run(DEMOS, work / f"b{i}"))
+            singles.append(sum(_run([c], work / f"s{i}") for c in demos))
+            batches.append(_run(demos, work / f"b{i}"))
             if args.spawn:
-                spawned.append(_run(DEMOS, work / f"p{i}", env={**os.environ, "HUBWRIGHT_SPAWN": "1"}))
+                spawned.append(_run(demos, work / f"p{i}", env={**os.environ, "HUBWRIGHT_SPAWN": "1"}))
         s, b = statistics.median(singles), statistics.median(batches)
-        print(f"{len(DEMOS)} demos, {args.runs} run(s), whole processes, median:")
+        print(f"{len(demos)} demos, {args.runs} run(s), whole processes, median:")
         print(f"  sum of single builds   {s:6.2f} s")
         print(f"  batch (fork server)    {b:6.2f} s   ratio {b / s:.2f} (target <= {TARGET})")
         if spawned:

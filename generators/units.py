@@ -117,6 +117,10 @@ def _quantity_raw(value, key: str, default_unit: str | None, allowed: tuple[str,
             raise UserError(key, f"{value!r} is too large for {_a(kind)}", LIMIT_TEXT[target]) from None
         except (ValueError, ZeroDivisionError):
             raise UserError(key, f"cannot read {value!r} as {_a(kind)}", accepted) from None
+        if unit is None and "/" in value and default_unit in ("mm", "millimeter"):
+            # a shop fraction is an inch size; "1-1/4" meaning 1.25 mm is a slip
+            raise UserError(key, f"{value!r} is a fraction with no unit in a millimetre file",
+                            f"a unit with it, such as '{value.strip()} in', or a number of mm")
         unit = unit or default_unit
     else:
         raise UserError(key, f"expected {_a(kind)}, got {type(value).__name__}", accepted)

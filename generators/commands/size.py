@@ -36,10 +36,7 @@ def add_arguments(p: argparse.ArgumentParser) -> None:
 
 
 def _jobs(text: str) -> int:
-    try:
-        n = int(text)
-    except ValueError:
-        n = 0
+    n = int(text) if text.isdigit() and text.isascii() else 0  # not " 2", "1_0" or "+2"
     if n < 1:
         raise argparse.ArgumentTypeError(f"a whole number of 1 or more is accepted, not {text!r}")
     return n

@@ -151,3 +151,15 @@ def test_malformed_values_get_one_line_naming_the_key(tmp_path, section, text, p
     with pytest.raises(UserError) as e:
         parse_config(data)
     assert e.value.key == f"{section}.{text.split(' =')[0]}" and problem in str(e.value)
+
+
+@pytest.mark.parametrize("text", ["1-1/4", "3/8", "1 1/2"])
+def test_a_bare_fraction_in_a_millimetre_file_is_refused(text):
+    """Shop fractions are inch sizes (ASME B1.1 and drill charts give them in inches); read in a
+    millimetre file they would make a 1.25 mm part, so they need their unit there."""
+    with pytest.raises(UserError) as e:
+        length_mm(text, "hub.thickness", "mm")
+    assert e.value.line().startswith("hub.thickness") or "hub.thickness" in e.value.line()
+    assert "in" in str(e.value.line())
+    assert length_mm(text + " in", "hub.thickness", "mm") == pytest.approx(parse_number(text) * 25.4)
+    assert length_mm(text, "hub.thickness", "in") == pytest.approx(parse_number(text) * 25.4)

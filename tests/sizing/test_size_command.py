@@ -53,6 +53,14 @@ def test_bad_vary_key_exits_2(tmp_path, key):
     assert not (tmp_path / "six-spreader-portable.sized.toml").exists()
 
 
+@pytest.mark.parametrize("jobs", ["0", "x", " 2", "1_0", "+2", "-1"])
+def test_bad_jobs_exits_2_and_writes_nothing(tmp_path, jobs):
+    cfg = copy(HEX, tmp_path)
+    code, _, err = run(["size", str(cfg), "--jobs", jobs])
+    assert code == 2 and "--jobs" in err and "a whole number of 1 or more" in err
+    assert not (tmp_path / "six-spreader-portable.sized.toml").exists()
+
+
 def test_loads_no_hub_can_meet_exit_1(tmp_path):
     """Drag goes as q = rho V^2 / 2, so the pole's safety factor scales as (V0 / V)^2 whatever the
     hub: at 4 x the demo's wind it is 1/16 of the demo's, below 1, and no hub size helps."""
