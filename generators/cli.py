@@ -39,6 +39,11 @@ def parser() -> argparse.ArgumentParser:
     return p
 
 
+# the end of the interrupted line, for commands that write no output folder
+LEAVES = {"check": "nothing was written", "threads": "nothing was written",
+          "size": "a sized file is only ever written whole"}
+
+
 def main(argv: list[str] | None = None) -> int:
     import threading
 
@@ -53,6 +58,8 @@ def main(argv: list[str] | None = None) -> int:
     if not getattr(args, "command", None):
         p.print_help()
         return 2
+    if args.command in LEAVES:
+        signals.leaves(LEAVES[args.command])
     try:
         return importlib.import_module(args._module).run(args)
     except UserError as exc:

@@ -22,6 +22,7 @@ _SIGNALS = tuple(EXIT_CODES)
 _owner: int | None = None  # the pid that installed the handler; a forked child is not it
 _quiet = False  # a batch worker leaves the one line to the command
 _cleanups: list[Callable[[], None]] = []
+_left = "output folders already in place are complete"  # what an interrupted command leaves
 
 
 def exit_code(signum: int) -> int:
@@ -29,7 +30,13 @@ def exit_code(signum: int) -> int:
 
 
 def line(signum: int) -> str:
-    return f"error: interrupted by {signal.Signals(signum).name}; output folders already in place are complete"
+    return f"error: interrupted by {signal.Signals(signum).name}; {_left}"
+
+
+def leaves(text: str) -> None:
+    """Say what this command leaves behind when interrupted (the end of the one line)."""
+    global _left
+    _left = text
 
 
 def install(quiet: bool = False) -> None:
@@ -48,11 +55,14 @@ def installed() -> bool:
 def forked_child() -> None:
     """In a forked child: leave at once on a signal, silently, touching nothing of the parent."""
     global _owner, _quiet
+    parent = _owner
     _owner, _quiet = os.getpid(), True
     _cleanups.clear()
     with contextlib.suppress(ValueError, OSError, AttributeError):
         signal.pthread_sigmask(signal.SIG_UNBLOCK, _SIGNALS)  # forked inside held()
     die_with_parent()
+    if parent is not None and os.getppid() != parent:  # the parent died before we asked
+        os._exit(143)
 
 
 def die_with_parent() -> None:

@@ -13,6 +13,7 @@ from __future__ import annotations
 import contextlib
 import os
 import signal
+import time
 from multiprocessing import get_all_start_methods, get_context
 
 LEAVE_S = 10.0  # how long a worker has to leave a closed pool before it is killed
@@ -32,6 +33,11 @@ def _worker() -> None:
 
     signals.forked_child()
     signal.signal(signal.SIGINT, signal.SIG_IGN)
+    # a judge keeps nothing worth cleaning up: SIGTERM (the parent's death, through
+    # PR_SET_PDEATHSIG) ends it in the kernel, even while it waits on the task queue's lock,
+    # where a Python handler would never run (a worker the pool starts again just as the
+    # command is interrupted would otherwise outlive it)
+    signal.signal(signal.SIGTERM, signal.SIG_DFL)
     # numpy's BLAS would start a thread per core in every worker: one each is what is free
     threadpool_limits(limits=1)
 
@@ -58,9 +64,22 @@ class Judges:
 
     def _kill(self) -> None:
         """On a signal: end the workers at once (no locks taken; they die with us anyway)."""
-        for proc in list(getattr(self.pool, "_pool", ())):
-            with contextlib.suppress(OSError, TypeError):
-                os.kill(proc.pid, signal.SIGKILL)
+        handler = getattr(self.pool, "_worker_handler", None)
+        if handler is not None:  # the pool would start new workers in place of the killed
+            handler._state = "TERMINATE"  # multiprocessing.pool.TERMINATE
+        done: set[int] = set()
+        for _ in range(3):  # and any it started just before it saw that
+            procs = [p for p in list(getattr(self.pool, "_pool", ())) if p.pid not in done]
+            for proc in procs:
+                with contextlib.suppress(OSError, TypeError):
+                    os.kill(proc.pid, signal.SIGKILL)
+            for proc in procs:  # reaped here: no zombie is left for init to reap
+                with contextlib.suppress(OSError, TypeError):
+                    os.waitpid(proc.pid, 0)
+                done.add(proc.pid)
+            if not procs:
+                break
+            time.sleep(0.02)
 
     def stop(self) -> None:
         """Let the workers leave as a pool closes (each takes its end-of-work mark); one that

@@ -138,6 +138,22 @@ def test_signals_end_a_build_promptly_and_leave_nothing_running(tmp_path, delay_
     assert not (out / NAME).exists()  # no half-written output
 
 
+def test_an_interrupted_size_says_what_it_leaves_and_leaves_no_file(tmp_path):
+    cfg = tmp_path / DEMO.name
+    cfg.write_bytes(DEMO.read_bytes())
+    proc = subprocess.Popen([sys.executable, "-m", "generators", "size", str(cfg)], cwd=ROOT,
+                            stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True, start_new_session=True)
+    time.sleep(1.2)
+    proc.send_signal(signal.SIGINT)
+    _, err = proc.communicate(timeout=60)
+    if proc.returncode == 0:
+        pytest.skip("the search finished before the signal")
+    assert proc.returncode == 130 and err == "error: interrupted by SIGINT; a sized file is only ever written whole\n"
+    time.sleep(1.0)
+    assert alive_in_group(proc.pid) == []  # no judge left running
+    assert sorted(p.name for p in tmp_path.iterdir()) == [DEMO.name]  # no sized file, no temporary
+
+
 def _config_with(tmp_path, mutate) -> pathlib.Path:
     data = tomllib.loads(DEMO.read_text(encoding="utf-8"))
     mutate(data)
