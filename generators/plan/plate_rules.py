@@ -256,7 +256,7 @@ class PlateRules(PlacementRules):
                               + (BRITTLE_SOURCE if w.brittle else f"yield, under {SF_FAIL:g} fails ({COMMON})")))
         sf = w.sf_plate
         st = _grade(sf, SF_PLATE)
-        out.append(RuleResult("plate-bending", st, sf, SF_PLATE, "SF",
+        out.append(RuleResult("plate-bending", st, sf, SF_FAIL if st == FAIL else SF_PLATE, "SF",
                               f"plate {self.fmt(self.T)} thick: {w.plate_stress_mpa:.0f} MPa in bending between the"
                               f" U-bolts against {self.mat.yield_mpa:g} MPa ({self.mat.name}): safety factor {sf:.2f}"
                               + ("" if st == PASS else ": a thicker plate (hub.thickness), a stronger material or"
@@ -265,7 +265,7 @@ class PlateRules(PlacementRules):
         sigma = w.leg_tension_n / stress_area_mm2(u.size.thread)
         sf = w.sf_legs
         st = _grade(sf, SF_PLATE)
-        out.append(RuleResult("u-bolt-tension", st, sf, SF_PLATE, "SF",
+        out.append(RuleResult("u-bolt-tension", st, sf, SF_FAIL if st == FAIL else SF_PLATE, "SF",
                               f"outer U-bolt legs ({u.size.thread.designation}): {w.leg_tension_n:.0f} N each,"
                               f" {sigma:.0f} MPa on the stress area: safety factor {sf:.2f}"
                               + ("" if st == PASS else ": a wider plate.u_bolt_spacing or a larger U-bolt"),

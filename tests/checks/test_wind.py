@@ -141,3 +141,21 @@ def test_solid_pole_when_no_wall_given():
     sigma = w.root_moment_nm * 1000 * 10.0 / (math.pi * 20.0 ** 4 / 64)  # solid rod, Roark
     assert w.solid_pole and w.spreader_stress_mpa == pytest.approx(sigma, rel=1e-9)
     assert "solid rod" in next(r for r in checks.rules if r.id == "wind-spreader").message
+
+
+def test_a_failing_safety_factor_is_judged_against_one_not_the_recommended_margin():
+    """A rule's limit is the figure it was judged against: the minimum when it fails (SF 1,
+    yield reached; common practice), the recommended margin when it warns. Shallow sockets
+    make the bearing rule fail, a little deeper only warn."""
+    from .helpers import rule
+
+    seen = set()
+    for depth in (20, 30, 40, 45):  # without set screws, which need room in a shallow socket
+        _, _, checks = checks_for(modified(spreaders={"socket_depth": depth}, set_screws=None))
+        r = rule(checks, "wind-bearing")
+        seen.add(r.status)
+        if r.status == "fail":
+            assert r.value < 1.0 and r.limit == 1.0, (depth, r.value, r.limit)
+        elif r.status == "warn":
+            assert 1.0 <= r.value < r.limit and r.limit > 1.0, (depth, r.value, r.limit)
+    assert {"fail", "warn"} <= seen, seen

@@ -135,4 +135,4 @@ def pin_retention(rules, wind, pin, sf_warn: float) -> RuleResult:
             hold.governs, "a larger mast_pin.thread (more bearing), a harder hub material or a metal sleeve in"
                           " the pin hole")
         msg += f"; {fix}"
-    return RuleResult("mast-retention", status, sf, sf_warn, "SF", msg, src)
+    return RuleResult("mast-retention", status, sf, 1.0 if status == FAIL else sf_warn, "SF", msg, src)

@@ -102,7 +102,8 @@ class SplitRules(RulesBase):
         if status != PASS:
             msg += ("; a larger split.thread, a higher split.torque, [mast_clamp] screws as well, or a"
                     " through bolt ([mast_pin])")
-        return RuleResult("split-clamp", status, sf if math.isfinite(sf) else None, SF_SPLIT_CLAMP, "SF", msg, src)
+        return RuleResult("split-clamp", status, sf if math.isfinite(sf) else None,
+                          1.0 if status == FAIL else SF_SPLIT_CLAMP, "SF", msg, src)
 
     def rule_split_bearing(self) -> RuleResult:
         """The head and the nut of each bolt at its torque against the hub's yield."""

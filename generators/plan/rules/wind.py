@@ -63,7 +63,7 @@ class WindRules(RulesBase):
                f" {S(wind.hub_bearing_allowable_mpa, u, 1)} in {self.mat.name}: safety factor {sf:.2f}")
         if st != PASS:
             msg += ": deeper sockets (spreaders.socket_depth), a stiffer hub material, or a metal sleeve"
-        out.append(RuleResult("wind-bearing", st, sf, SF_BEARING, "SF", msg,
+        out.append(RuleResult("wind-bearing", st, sf, SF_FAIL if st == FAIL else SF_BEARING, "SF", msg,
                               "rigid post in a socket, linear bearing pressure (common practice);"
                               " allowable bearing from the materials table"))
         if wind.sf_set_screw is None:
@@ -78,7 +78,7 @@ class WindRules(RulesBase):
                    f" {F(wind.set_screw_capacity_n, u)} held by its set screws: safety factor {sf:.2f}")
             if st != PASS:
                 msg += ": two set screws per spreader, a larger thread, or a through bolt"
-            out.append(RuleResult("wind-set-screw", st, sf, SF_SET_SCREW, "SF", msg,
+            out.append(RuleResult("wind-set-screw", st, sf, SF_FAIL if st == FAIL else SF_SET_SCREW, "SF", msg,
                                   "friction 2 mu N, mu 0.2 (common practice), N from the set-screw torque,"
                                   " T = K F d with K 0.3 (standards/holding.py), at most half the thread"
                                   " strip-out force (shear area pi D Le / 2, Machinery's Handbook, from memory)"))
