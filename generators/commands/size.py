@@ -117,12 +117,21 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
                               f" {figure(r['limit'], r['unit'], units)}; now {figure(r['now'], r['unit'], units)})")
     lines += ["", "mass per step:"]
     rows = [["dimension", "value", "one step up", "one step down"]]
+    lighter = []
     for s in sensitivity(result, best):
         d = next(x for x in dims if x.key == s["key"])
-        up = f"{s['grams_per_step']:+.0f} g" if s["grams_per_step"] is not None else "refused"
+        if s["up_refused"] or s["grams_per_step"] is None:
+            up = "refused"
+        else:
+            up = f"{s['grams_per_step']:+.0f} g" + ("" if s["up_passes"] else ", fails")
+            if s["up_passes"] and s["grams_per_step"] < 0:
+                lighter.append(f"{s['key']} one step up passes and is {-s['grams_per_step']:.0f} g lighter")
         down = "fails" if not s["down_passes"] else f"{s['mass_down_g'] - best.mass_g:+.0f} g"
         rows.append([s["key"], _fmt(s["value"], d.kind, units), up, down])
     lines += ["  " + r for r in _table(rows)]
+    if lighter:  # deeper blind sockets remove material: smallest is not always lightest
+        lines.append(f"  note: {'; '.join(lighter)} (each dimension is kept as small as passes;"
+                     " set it by hand for the lighter hub)")
     lines += ["", "best candidates:"]
     stock = result.objective == "stock"
     rows = [["#", "material"] + [d.key for d in dims] + ["mass"] + (["stock"] if stock else []) + ["lowest SF", "binds"]]

@@ -57,6 +57,7 @@ def sensitivity(result: SizingResult, o: Outcome) -> list[dict]:
             "mass_up_g": up.mass_g, "mass_down_g": down.mass_g if down else None,
             "grams_per_step": (up.mass_g - o.mass_g) if up.mass_g is not None else None,
             "down_passes": bool(down and down.ok),
+            "up_passes": bool(up.ok), "up_refused": up.refusal is not None,
         })
     return rows
 
