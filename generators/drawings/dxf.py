@@ -102,6 +102,8 @@ def write_sheet_dxf(sheet: S.Sheet, path: Path, heading: str) -> None:
             w.text(S.SCALE_BARS, (x0 + length + 3.0, y), f"{name} scale bar", 3.0, "left", "center")
         w.text(S.SCALE_BARS, (x0, y0 - 33.0), "print at 100 % / actual size - measure the bar before drilling",
                3.0)
+        w.text(S.LABELS, (x0, y0 - 38.0), "clamp the work; wear eye protection; keep masts clear of power lines",
+               2.5)
         # hole table to the right of the drawing, drilling order and notes below it
         tx = x1 + 12.0
         rows = sheet.table

@@ -44,6 +44,7 @@ STYLE = {
 TEXT_COLOR = (0.0, 0.0, 0.0)
 BAR_100MM = 100.0
 BAR_4IN = 4 * MM_PER_IN
+SAFETY = ("Clamp the work; wear eye protection.", "Keep masts clear of power lines.")
 PRINT_AT_100 = "print at 100 % / actual size \u2014 measure the bar before drilling"
 
 _RC = {
@@ -151,6 +152,8 @@ def _furniture(page: P.Page, pax, total: int, name: str, page_numbers: dict[str,
         for x in (m, m + length):  # end ticks, separate short segments
             _line(pax, (x, y - 2.0), (x, y + 2.0), S.SCALE_BARS, clip=False)
         _text(pax, (m + length + 3.0, y), label, 3.0, va="center", clip=False)
+    for k, line in enumerate(SAFETY):  # at the bench: the usual cautions, right of the scale bars
+        _text(pax, (w - m, m + 17.0 - 3.6 * k), line, 2.6, ha="right", va="bottom", clip=False)
     _text(pax, (w - m, m + 4.0), f"page {page.number} of {total}", 3.0, ha="right", va="bottom", clip=False)
     _text(pax, (w - m, m), f"hubwright {__version__}: 1:1 drill templates", 2.2, ha="right", va="bottom",
           clip=False, color=(0.4, 0.4, 0.4))

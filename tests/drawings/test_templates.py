@@ -192,6 +192,7 @@ def test_pdf_pages_paper_bars_and_print_note(templates, name):
         assert len(bars_100) == 1 and len(bars_4in) == 1, (rec["page"], sorted(lengths))
         text = " ".join(page.get_text().split())
         assert "print at 100 % / actual size" in text and "measure the bar before drilling" in text
+        assert "wear eye protection" in text and "power lines" in text  # the usual cautions, every page
         assert f"page {rec['page']} of {len(doc)}" in text
 
 

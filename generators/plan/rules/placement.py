@@ -105,7 +105,10 @@ class PlacementRules(RulesBase):
         msg = (f"{h.id}: elevation {e_now:.1f} deg; this body takes up to {at_rec:.1f} deg with the"
                f" recommended {self.fmt(rec)} of wall, {at_min:.1f} deg with the minimum"
                f" {self.fmt(self.min_wall)} (breaks out past {at_break:.1f} deg)")
-        if status != PASS:
+        if status != PASS and e_now < 1e-9:  # level: no tilt to take back
+            msg += ("; level sockets already leave less than that (socket-wall): a thicker hub"
+                    " (hub.thickness) or thinner spreaders before any elevation")
+        elif status != PASS:
             msg += "; less elevation (spreaders.elevation) or a thicker hub (hub.thickness)"
         return RuleResult("socket-tilt", status, e_now, limit, "deg", msg,
                           f"geometry of the tilted socket; minimum wall {COMMON}")
