@@ -178,7 +178,8 @@ def speed_m_s(value, key: str) -> float:
 
 def _fraction_text(inches: float, denominator: int = 64) -> str | None:
     frac = Fraction(inches).limit_denominator(denominator)
-    if abs(float(frac) - inches) > 1e-6 or frac.denominator & (frac.denominator - 1):
+    # within 0.0006 mm: a fraction read back from the manifest's mm to 0.001 mm is still that fraction
+    if abs(float(frac) - inches) > 2.5e-5 or frac.denominator & (frac.denominator - 1):
         return None  # shop fractions have power-of-two denominators
     whole, rest = divmod(frac, 1)
     if rest == 0:
@@ -192,7 +193,7 @@ def format_length(mm: float, units: str = "mm", fractions: bool = True) -> str:
     """Show a length as a shop person writes it: ``"38.1 mm"``, ``"1-1/2 in"``, ``"0.201 in"``."""
     mm = 0.0 if abs(mm) < 5e-4 else mm  # no "-0 mm" from rounding noise
     if units == "in":
-        inches = mm / MM_PER_IN
+        inches = round(mm / MM_PER_IN, 9)  # 4.7625 mm is 0.1875 in, not 0.18749999...
         text = _fraction_text(inches) if fractions else None
         if text is None:
             text = f"{inches:.3f}"

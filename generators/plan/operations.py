@@ -329,8 +329,11 @@ class _Machined(_Face):
             notes = [f"{pct:.0f}% thread" if pct else "", "finish with a bottoming tap" if blind else "",
                      self._tap_on(hs),
                      f"thread only the last {self.L(depth - start)} ({self.L(start)} to {self.L(depth)} from"
-                     " the face), through the clearance hole with a reduced-shank tap (DIN 376) or a pulley"
-                     " tap, whose shank passes it (a DIN 371 tap's shank is about the thread's size)"
+                     " the face), through the clearance hole with "
+                     + ("a reduced-shank tap (DIN 376) or a pulley tap, whose shank passes it (a DIN 371"
+                        " tap's shank is about the thread's size)" if thread.upper().startswith("M") else
+                        "a pulley (long-shank) tap, whose shank passes it (a standard tap's shank is about the"
+                        " thread's size)")
                      if start > 0 else "",
                      self.tap_reach(thread, depth if not through else max(h.depth_mm for h in hs),
                                     RUN_ON_PITCHES * parse_thread(thread).pitch_mm if self._tap_on(hs) else 0.0),

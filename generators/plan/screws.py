@@ -81,7 +81,8 @@ def set_screw(thread: str, gap_mm: float, start_mm: float, end_mm: float, length
 def torque_text(nm: float, units: str) -> str:
     """A tightening torque as the config's users say it (1 lbf in = 0.112985 N m, NIST SP 811)."""
     lbf_in = nm / 0.112985
-    return f"{lbf_in:.0f} in-lbf ({nm:.1f} N m)" if units == "in" else f"{nm:.1f} N m ({lbf_in:.0f} in-lbf)"
+    si = f"{nm:.2f}".rstrip("0").rstrip(".") if nm < 10 else f"{nm:.1f}"  # 0.75 N m stays 0.75
+    return f"{lbf_in:.0f} in-lbf ({si} N m)" if units == "in" else f"{si} N m ({lbf_in:.0f} in-lbf)"
 
 
 def clamp_screw(thread: str, wall_mm: float, gap_mm: float, start_mm: float, end_mm: float,

@@ -140,7 +140,7 @@ class RetentionRules(RulesBase):
         src = (f"friction 2 mu F per screw (point and opposite wall), mu = {mu:g} ({mu_src}); F = T / (K d),"
                f" K = {K_HOLD:g} (standards/holding.py); {t_src}; torque from an uneven gust: plan/mast_loads.py;"
                f" SF under 1 fails (sliding or turning); under {SF_RETENTION:g} warns ({COMMON})")
-        held = f"{len(clamps)} clamp screw(s)" if clamps else ""
+        held = f"{len(clamps)} clamp screw{'s' if len(clamps) > 1 else ''}" if clamps else ""
         if split is not None:  # the split bolts clamp the mast as well (rules/split.py)
             total += split[0]
             src += f"; split: {split[1]}"
@@ -152,7 +152,10 @@ class RetentionRules(RulesBase):
         sf_turn = total * r_m / max(mast.mast_torque_nm, 1e-9)
         sf = min(sf_slide, sf_turn)
         status = FAIL if sf < 1.0 else WARN if sf < SF_RETENTION else PASS
-        what = f"{len(clamps)} {thread.designation} clamp screw(s) at {_M(t, _u, 2)}" if clamps else ""
+        from generators.plan.screws import torque_text
+
+        what = (f"{len(clamps)} x {thread.designation} clamp screw{'s' if len(clamps) > 1 else ''} at"
+                f" {torque_text(t, _u)}" if clamps else "")
         if split is not None:
             what = (what + " and " if what else "") + f"{len(self.plan.split.bolts)} split bolts"
         msg = (f"{what} hold {_F(total, _u)} along the mast"
