@@ -64,6 +64,14 @@ def _fmt(value: float, kind: str, units: str) -> str:
     return f"{value:g} deg" if kind == "angle" else f"{value:g}"
 
 
+def _binds(rec: dict) -> str:
+    """The binds column: rule ids, a refusal by the key it names, or why there is none."""
+    out = [r["id"] for row in rec["binding"] for r in row["rules"]]
+    out += [f"refused ({row['refusal'].split(':', 1)[0]})" for row in rec["binding"]
+            if row["refusal"] and row["below"] is not None]
+    return ", ".join(dict.fromkeys(out)) or "none (smallest on the grid)"
+
+
 def _table(rows: list[list[str]]) -> list[str]:
     w = [max(len(r[i]) for r in rows) for i in range(len(rows[0]))]
     out = ["  ".join(c.ljust(w[i]) for i, c in enumerate(r)).rstrip() for r in rows]
@@ -107,10 +115,7 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
             continue
         at = f"  {row['key']} at {_fmt(row['below'], d.kind, units)}: "
         if row["refusal"]:
-            key = row["refusal"].split(":", 1)[0]
-            held = ("" if any(key == x.key for x in dims) or " " in key
-                    else f" ({key} is held at the config's value: change it to go smaller)")
-            lines.append(at + f"refused: {row['refusal']}{held}")
+            lines.append(at + f"refused: {row['refusal']} (a hard limit: no design is made past it)")
         for r in row["rules"]:
             verb = "warns" if r.get("status") == "warn" else "fails"
             lines.append(at + f"{r['id']} {verb} ({figure(r['below'], r['unit'], units)} against"
@@ -140,7 +145,7 @@ def _text(result, records, path: Path, target: Path, cfg, orig_mass: float) -> l
         blank = [f"{c['objective_value'] / 1000:.2f} L"] if stock else []
         sfc = "-" if c["lowest_safety_factor"] is None else f"{c['lowest_safety_factor']:.2f}"
         rows.append([str(k), c["material"]] + vals + [f"{c['mass_g']:.0f} g"] + blank +
-                    [sfc, ", ".join(c["binding_rules"]) or "-"])
+                    [sfc, _binds(c)])
     lines += ["  " + r for r in _table(rows)]
     if result.objective == "stock":
         from generators.sizing.stock import SOURCE
