@@ -63,6 +63,30 @@ class PocketSearch:
             th = 2 * math.pi * k / SLOT_DIRECTIONS
             dirs.append(unit(tuple(math.cos(th) * p0[i] + math.sin(th) * q0[i] for i in range(3))))
         best, reason = None, "no slot direction keeps its walls"
+        for need in dict.fromkeys((max(self.wall, self._rule_wall()), self.wall)):
+            # first a place that keeps the hole-wall rule's minimum to the other cuts, else one
+            # that keeps the printed wall (and the rule then says what is thin)
+            best, reason = self._place_nut(h, orig, nut, centres, dirs, a, corners, flats, height,
+                                           holes, pockets, need, reason)
+            if best is not None:
+                break
+        if best is None:
+            raise UserError(self._key(h), f"no room for the captive {orig.thread} nut of {h.id}: {reason}",
+                            "a thicker or wider hub, a smaller thread, or heat-set inserts"
+                            " ([print] insert_hole and insert_depth)")
+        return best
+
+    def _rule_wall(self) -> float:
+        """The hole-wall rule's minimum for this material (plan/rules/base.py)."""
+        from generators.plan.rules.base import MIN_WALL_MM
+        from generators.standards.materials import get_material
+
+        return MIN_WALL_MM[get_material(self.cfg.hub.material).material_class]
+
+    def _place_nut(self, h, orig, nut, centres, dirs, a, corners, flats, height, holes, pockets, need, reason):
+        """The first pocket (middle of the span first, the slot up first) that keeps ``need``
+        to the other cuts and its printed walls elsewhere; and the last reason one did not."""
+        best = None
         for t in centres:
             C = h.point_at(t)
             options = []
@@ -84,18 +108,14 @@ class PocketSearch:
                               nut=f"{orig.thread} hex nut, {nut.standard}"
                                   f" ({self.fmt(nut.across_flats_mm)} across flats, {self.fmt(nut.height_mm)} high)",
                               note=f"captive nut for {h.id}: slide it in from the {face} face")
-                problem = self._check_pocket(pocket, holes, pockets, exit_face=face, raise_=False)
+                problem = self._check_pocket(pocket, holes, pockets, exit_face=face, raise_=False, hole_wall=need)
                 if problem is None:
                     best = pocket
                     break
                 reason = problem
             if best is not None:
                 break
-        if best is None:
-            raise UserError(self._key(h), f"no room for the captive {orig.thread} nut of {h.id}: {reason}",
-                            "a thicker or wider hub, a smaller thread, or heat-set inserts"
-                            " ([print] insert_hole and insert_depth)")
-        return best
+        return best, reason
 
     def _material_span(self, h: Hole, holes: list[Hole]) -> float:
         """How far along its axis the hole runs through material before it meets another cut."""
@@ -142,16 +162,18 @@ class PocketSearch:
         return None
 
     def _check_pocket(self, pocket: Hole, holes: list[Hole], pockets: list[Hole], exit_face,
-                      raise_: bool = True) -> str | None:
-        """None when the pocket keeps its walls, else what is too thin (or raise)."""
-        problem = self._pocket_problem(pocket, holes, pockets, exit_face)
+                      raise_: bool = True, hole_wall: float | None = None) -> str | None:
+        """None when the pocket keeps its walls (``hole_wall`` to the other cuts, default the
+        printed wall), else what is too thin (or raise)."""
+        problem = self._pocket_problem(pocket, holes, pockets, exit_face, hole_wall or self.wall)
         if problem is not None and raise_:
             raise UserError(self._key(self.plan.hole(pocket.serves)), f"{pocket.id}: {problem}",
                             f"at least {MIN_WALL_LINES} lines = {self.fmt(self.wall)}: a thicker hub,"
                             " a smaller thread or a shorter insert_depth")
         return problem
 
-    def _pocket_problem(self, pocket: Hole, holes: list[Hole], pockets: list[Hole], exit_face) -> str | None:
+    def _pocket_problem(self, pocket: Hole, holes: list[Hole], pockets: list[Hole], exit_face,
+                        hole_wall: float) -> str | None:
         pts = pocket_surface_points(pocket)
         # keep only points inside the body (the slot runs out through its exit face)
         z_ok = (pts[:, 2] > -1e-6) & (pts[:, 2] < self.T + 1e-6)
@@ -163,8 +185,8 @@ class PocketSearch:
             if o.id == pocket.serves:
                 continue
             for r in regions_of(o):
-                d = r.least(pts_in, self.wall)
-                if d < self.wall - 1e-6:
+                d = r.least(pts_in, hole_wall)
+                if d < hole_wall - 1e-6:
                     return f"{self.fmt(max(d, 0))} of material to {o.id}"
         # walls to the outer faces, from the pocket itself (not its slot)
         core = pocket if pocket.profile != "hex" else replace(pocket, slot_length_mm=0.0)

@@ -131,3 +131,22 @@ def test_a_pin_too_near_a_socket_names_the_pin_height(cfg):
     with pytest.raises(UserError) as err:
         build_plan(moved)
     assert err.value.key == "mast_pin.height" and "printed wall" in err.value.problem
+
+
+@pytest.mark.parametrize("thickness", [50, 51, 52])
+def test_a_captive_nut_is_placed_where_the_hole_wall_minimum_holds(thickness):
+    """The pocket planner first looks for a place along the screw that keeps the hole-wall
+    rule's minimum (3 mm in plastic, common practice) to the other cuts, not only the printed
+    wall; at 51 mm the middle of the span used to leave 1.83 mm to the socket while other
+    places along the screw kept more than 3 mm. Measured on the true cutter shapes."""
+    import tomllib
+
+    from generators.config.load import parse_config
+    from generators.design import design
+
+    data = tomllib.loads(PRINTED.read_text(encoding="utf-8"))
+    data["hub"].update(thickness=thickness, across_flats=128)
+    d = design(parse_config(data))
+    nut_walls = [w.mm for w in d.walls if "-nut" in w.a + w.b and not w.b.startswith("face:")]
+    assert nut_walls and min(nut_walls) >= 3.0 - 1e-9, min(nut_walls)
+    assert {r["id"]: r["status"] for r in d.checks_json["rules"]}["hole-wall"] != "fail"
