@@ -84,10 +84,11 @@ def run(args: argparse.Namespace) -> int:
 
     path = args.config or str(default_config())
     cfg = load_config(path)
-    checks = design(cfg, tuple(args.mast or ())).checks_json
+    d = design(cfg, tuple(args.mast or ()))
+    checks = d.checks_json
     bad = failed(checks)
     if args.json:
-        json.dump(checks, sys.stdout, indent=2)
+        json.dump({**checks, "sleeves": [_sleeve_json(s) for s in d.sleeves]}, sys.stdout, indent=2)
         sys.stdout.write("\n")
     else:
         print(f"{cfg.name}: {len(checks['rules'])} rules, {len(bad)} failed, {len(warned(checks))} warned")
@@ -97,3 +98,11 @@ def run(args: argparse.Namespace) -> int:
         print()
         print(CAUTION)
     return 1 if bad else 0
+
+
+def _sleeve_json(s) -> dict:
+    """A reducer sleeve as plain data (mm): which mast, its sizes and what holds it."""
+    return {"key": s.key, "mast": s.mast_designation, "mast_od_mm": round(s.mast_od_mm, 4),
+            "od_mm": round(s.od_mm, 4), "id_mm": round(s.id_mm, 4), "wall_mm": round(s.wall_mm, 4),
+            "length_mm": round(s.length_mm, 4), "flange": s.flange is not None, "slit": s.slit is not None,
+            "holes": [h.id for h in s.holes]}

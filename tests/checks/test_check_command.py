@@ -27,9 +27,22 @@ def test_json_keys_and_exit_0_on_the_demos(path):
     p = hubwright("check", str(path), "--json")
     assert p.returncode == 0, p.stderr
     data = json.loads(p.stdout)
-    assert set(data) == {"rules", "wind"}
+    assert set(data) == {"rules", "wind", "sleeves"}
     assert data["rules"] and all(set(r) == RULE_KEYS for r in data["rules"])
     assert set(data["wind"]) == WIND_KEYS
+
+
+def test_json_lists_each_sleeve_for_its_mast():
+    """Mast ODs from the standards (ASME B36.10M: 1 NPS 1.315 in, 1-1/4 NPS 1.660 in; ANSI C80.3
+    EMT 1-1/4 in 1.510 in; from memory); each sleeve fills the bore and clears its mast."""
+    p = hubwright("check", str(ROOT / "configs" / "six-spreader-sleeves.toml"), "--json")
+    sleeves = json.loads(p.stdout)["sleeves"]
+    od_in = {s["mast"]: s["mast_od_mm"] / 25.4 for s in sleeves}
+    assert od_in == {"1-1/4 in EMT": pytest.approx(1.510, abs=5e-4), "1 NPS sch 40 pipe": pytest.approx(1.315, abs=5e-4),
+                     "1-1/4 NPS sch 40 pipe": pytest.approx(1.660, abs=5e-4)}
+    for s in sleeves:
+        assert s["mast_od_mm"] < s["id_mm"] < s["od_mm"]
+        assert s["wall_mm"] == pytest.approx((s["od_mm"] - s["id_mm"]) / 2, abs=1e-3)
 
 
 def test_default_config_is_the_metric_demo_and_prints_a_table():
