@@ -30,6 +30,7 @@ from generators.plan.model import Hole, HubPlan
 
 COARSE_MM, FINE_MM, REFINE_BELOW_MM = 1.0, 0.2, 12.0
 REFINE_REACH = 3.0  # fine samples within this many coarse steps of the least points
+POLISH_STEPS = 6  # nearest-point steps from the least sample to the least of the true shapes
 INSIDE_EPS_MM = 1e-6
 RIM_TOL_MM = 5e-4  # rims are bisected to this: well under the 0.001 mm walls are reported to
 
@@ -313,13 +314,45 @@ def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float,
     reach = REFINE_REACH * COARSE_MM
     fine = {i: _exposed(ci, i, cutters, body, FINE_MM, near=(at, reach)),
             j: _exposed(cj, j, cutters, body, FINE_MM, near=(partner, reach))}
+    side = i
     for src, dst in ((i, j), (j, i)):
         if len(fine[src]) == 0:
             continue
         dk, k = _to_exposed(fine[src], dst, cutters, body, fine[dst])
         if dk < best:
-            best, where = max(dk, 0.0), fine[src][k]
+            best, where, side = max(dk, 0.0), fine[src][k], src
+    if best > 0:
+        other = j if side == i else i
+        best, where = _polish(cutters, side, other, body, np.asarray(where, dtype=float), best)
     return best, where
+
+
+def _polish(cutters: list[Cutter], a: int, b: int, body: _Body, p: np.ndarray, best: float):
+    """Walk the least wall from the sample ``p`` on cut ``a`` to the exact least of the two
+    true shapes nearby: the nearest point of ``b`` to it, the nearest point of ``a`` to that,
+    and so on, while both are surfaces of the part and the distance falls (samples on a
+    curve stand off the least by up to a few microns). Each figure is the distance between
+    two points of the part's surface, so never under the true wall."""
+    ca, cb = cutters[a], cutters[b]
+    pa = [o for k, o in enumerate(cutters) if k != a and meets_by_design(ca.hole, o.hole)]
+    pb = [o for k, o in enumerate(cutters) if k != b and meets_by_design(cb.hole, o.hole)]
+
+    def exposed(x: np.ndarray, partners: list[Cutter]) -> bool:
+        return bool(body.inside(x)[0]) and all(o.sdf_or_box(x)[0] >= -INSIDE_EPS_MM for o in partners)
+
+    x = p[None]
+    for _ in range(POLISH_STEPS):
+        d, q = cb.nearest(x)
+        if d[0] <= 0 or not exposed(q, pb):
+            break
+        _, x2 = ca.nearest(q)
+        if not exposed(x2, pa):
+            break
+        dist = float(np.linalg.norm(x2[0] - q[0]))
+        if dist >= best - 1e-9:
+            break
+        best, x = dist, x2
+    return best, x[0]
 
 
 def _to_exposed(pts: np.ndarray, j: int, cutters: list[Cutter], body: _Body, cloud: np.ndarray) -> tuple[float, int]:

@@ -44,6 +44,17 @@ def test_two_parallel_through_holes_leave_centre_distance_minus_radii():
     assert _wall(walls, "A", "B") == pytest.approx(10.0 - 3.0 - 2.0, abs=TOL)
 
 
+@pytest.mark.parametrize("far,da,db", [(P50, 6.0, 4.0), (P47, 6.0, 4.0), (P50, 5.0, 3.3)])
+def test_the_least_wall_is_walked_to_the_exact_figure_not_a_samples(far, da, db):
+    """Samples on a circle stand off the least wall by a little; the nearest-point walk ends
+    on the exact figure (c - r1 - r2, plane geometry), never above it by more than rounding."""
+    data = _with_holes({"id": "A", "face": "top", "at": P40, "diameter": da},
+                       {"id": "B", "face": "top", "at": far, "diameter": db})
+    walls = measure_walls(build_plan(parse_config(data)))
+    c = math.dist(P40, far)
+    assert _wall(walls, "A", "B") == pytest.approx(c - da / 2 - db / 2, abs=1e-6)
+
+
 def test_a_countersink_is_widest_at_the_face():
     # the cone's rim (its head diameter D) on the face is nearest the neighbour: c - D/2 - r2
     data = _with_holes({"id": "A", "face": "top", "at": P40, "clearance": "M5", "countersink": True},
