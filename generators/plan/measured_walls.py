@@ -209,6 +209,8 @@ def measure_walls(plan: HubPlan) -> list[Wall]:
                     dd, k = body.least_to(other, fine)
                     if dd < w:
                         w, at = max(dd, 0.0), fine[k]
+                if w > 0 and other.kind != "rim":
+                    w, at = _polish_to_face(cutters, i, other, body, np.asarray(at, dtype=float), w)
         _keep(walls, cutters[i].hole.id, cutters[other].hole.id if pair else f"face:{other.id}", w, at)
     return sorted(walls.values(), key=lambda w: w.mm)
 
@@ -325,6 +327,28 @@ def _refine(ci: Cutter, i: int, cj: Cutter, j: int, cutters, body, at, w: float,
         other = j if side == i else i
         best, where = _polish(cutters, side, other, body, np.asarray(where, dtype=float), best)
     return best, where
+
+
+def _polish_to_face(cutters: list[Cutter], a: int, face, body: _Body, p: np.ndarray, best: float):
+    """``_polish`` against a flat face: the foot of the point on the face's plane, the
+    nearest point of the cut to that foot, and so on, while the foot lies on the face, the
+    point is a surface of the part and the wall falls."""
+    ca = cutters[a]
+    pa = [o for k, o in enumerate(cutters) if k != a and meets_by_design(ca.hole, o.hole)]
+    n = np.array(face.normal, dtype=float)
+    x = p[None]
+    for _ in range(POLISH_STEPS):
+        h = body.face_distance(face, x)
+        if h[0] <= 0 or body.region_distance(face, x)[0] > h[0] + 1e-9:
+            break  # outside, or the nearest point of the face is not its foot
+        _, x2 = ca.nearest(x + h[0] * n)
+        if not (body.inside(x2)[0] and all(o.sdf_or_box(x2)[0] >= -INSIDE_EPS_MM for o in pa)):
+            break
+        d2 = float(body.region_distance(face, x2)[0])
+        if d2 >= best - 1e-9:
+            break
+        best, x = d2, x2
+    return best, x[0]
 
 
 def _polish(cutters: list[Cutter], a: int, b: int, body: _Body, p: np.ndarray, best: float):
