@@ -7,7 +7,12 @@ from __future__ import annotations
 
 import argparse
 import importlib
+import os
 import sys
+
+# numpy's BLAS would start a thread per core for the many small products of the wall
+# measurer; on a busy machine they wait on each other (several times slower): one will do
+os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
 
 from generators import __version__, signals
 from generators.errors import UserError
