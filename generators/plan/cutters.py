@@ -18,8 +18,8 @@ from generators.plan.print_profiles import _basis, hex_slot_outline, teardrop_ou
 from generators.plan.geometry import cross, unit
 from generators.plan.sdf2d import poly_nearest, poly_sdf
 
-# Segments of a teardrop's 270 deg arc when sampling its surface (the samples lie inside the
-# true arc by at most r(1 - cos(2.8 deg)), 0.12 % of the radius; distances to it are exact).
+# Segments of a teardrop's 270 deg arc in its section polygon (its surface samples are put on
+# the true arc; distances to it are exact).
 ARC_POINTS = 48
 _SURFACES: dict[tuple, np.ndarray] = {}  # a shape's surface samples in its own frame
 
@@ -78,7 +78,8 @@ class Cutter:
         R, lo, hi = self._cylinder()
         d = pts - self.E
         t = d @ self.a
-        rho = np.sqrt(np.maximum(np.einsum("ij,ij->i", d, d) - t * t, 0.0))
+        off = d - t[:, None] * self.a  # not sqrt(|d|^2 - t^2): that loses the digits near the axis
+        rho = np.sqrt(np.einsum("ij,ij->i", off, off))
         dr, dt = rho - R, np.maximum(lo - t, t - hi)
         return np.where((dr <= 0) & (dt <= 0), np.maximum(dr, dt),
                         np.hypot(np.maximum(dr, 0.0), np.maximum(dt, 0.0)))
@@ -195,7 +196,7 @@ class Cutter:
             rk = rho[k]
             pts.append(np.stack([t[k], rk * np.cos(ang), rk * np.sin(ang)], axis=1))
         else:
-            ring = _walk(self.section, step, closed=True)
+            ring = self._ring(step)
             levels = np.linspace(self.t0, self.t1, max(2, int(math.ceil((self.t1 - self.t0) / step)) + 1))
             # the entry and the depth: where a cut meets the face it enters or its far face
             levels = np.union1d(levels, [t for t in (0.0, self.hole.depth_mm) if self.t0 < t < self.t1])
@@ -216,6 +217,16 @@ class Cutter:
         pts = [p for p in pts if len(p)]
         return np.concatenate(pts) if pts else np.empty((0, 3))
 
+    def _ring(self, step: float) -> np.ndarray:
+        """Points round a prism's section about ``step`` apart; a teardrop's on its true arc
+        (the polygon's chords lie inside it, by up to 0.12 % of the radius)."""
+        ring = _walk(self.section, step, closed=True)
+        if self.roof is not None:
+            rho = np.hypot(ring[:, 0], ring[:, 1])
+            arc = (poly_sdf(ring, self.roof) > 1e-9) & (rho > 0)
+            ring[arc] *= (self.hole.radius_mm / rho[arc])[:, None]
+        return ring
+
     def lines(self, step: float, near: tuple | None = None):
         """Straight lines lying on the cutter's side, about ``step`` apart round it, as
         (start points (N, 3), direction, length): the side of a prism, or the main cylinder
@@ -232,7 +243,7 @@ class Cutter:
             ring = np.stack([r * np.cos(ang), r * np.sin(ang)], axis=1)
         else:
             ta, tb = self.t0, self.t1
-            ring = _walk(self.section, step, closed=True)
+            ring = self._ring(step)
         if near is not None:
             _, q_ = self._local(np.asarray(near[0], dtype=float)[None])
             ring = ring[np.hypot(*(ring - q_[0]).T) <= near[1]]

@@ -44,6 +44,23 @@ def test_two_parallel_through_holes_leave_centre_distance_minus_radii():
     assert _wall(walls, "A", "B") == pytest.approx(10.0 - 3.0 - 2.0, abs=TOL)
 
 
+def test_teardrop_samples_lie_on_its_true_arc():
+    """A printed socket's surface samples sit on the circle of its drilled radius (or on its
+    roof), not on the polygon's chords inside it, which read the wall up to 0.12 % of the
+    radius too thick."""
+    import numpy as np
+
+    from generators.config import load_config
+    from generators.plan.cutters import Cutter
+
+    plan = build_plan(load_config(CONFIGS / "six-spreader-printed.toml"))
+    tear = [Cutter(h) for h in plan.holes if h.profile == "teardrop"]
+    assert tear
+    for c in tear:
+        pts = c.surface(0.5)
+        assert np.abs(c.sdf(pts)).max() < 1e-9, c.hole.id
+
+
 @pytest.mark.parametrize("far,da,db", [(P50, 6.0, 4.0), (P47, 6.0, 4.0), (P50, 5.0, 3.3)])
 def test_the_least_wall_is_walked_to_the_exact_figure_not_a_samples(far, da, db):
     """Samples on a circle stand off the least wall by a little; the nearest-point walk ends
@@ -196,6 +213,8 @@ def test_the_holding_cylinder_never_overstates_a_cuts_distance(name):
         c = Cutter(h)
         lo, hi = c.bounds()
         pts = rng.uniform(lo - 5.0, hi + 5.0, size=(4000, 3))
+        on_axis = c.E + np.outer(rng.uniform(c.t0 - 3.0, c.t1 + 3.0, 500), c.a)  # where digits are lost
+        pts = np.concatenate([pts, on_axis])
         exact, bound = c.sdf(pts), c.bound(pts)
         assert np.all(bound <= exact + 1e-9), (h.id, float((bound - exact).max()))
         quick = c.sdf_or_box(pts)
