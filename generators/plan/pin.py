@@ -149,7 +149,7 @@ def _clash(p, az, z, r, places, sockets, others) -> str:
     if ends is None:
         return "has no flat or chamfer square to the pin at both ends"
     entry, exit_, a, b = ends
-    for fid in {a[0], b[0]} - {"rim"}:
+    for fid in sorted({a[0], b[0]} - {"rim"}):  # sorted: the same message every run
         face = next(f for f in p.faces if f.id == fid)
         half_w = face.outline[1][0]
         if half_w - r < L.MIN_EDGE_MM:
