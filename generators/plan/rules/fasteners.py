@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import math
 
+from generators.units import format_length
 from generators.plan.rules.base import (  # noqa: F401
     COMMON, DEPTH_MIN_D, DEPTH_RECOMMENDED_D, EDGE_MIN_D, EDGE_RECOMMENDED_D, ENGAGE_MIN_D, FAIL,
     MASS_WARN_FRACTION, PASS, POCKETS, RECOMMENDED_OVER_MIN, SET_SCREW_MIN_ENGAGED_D, SF_BEARING, SF_FAIL,
@@ -92,7 +93,7 @@ class FastenerRules(RulesBase):
         order = {FAIL: 0, WARN: 1, PASS: 2}
         graded = [(f, *grade(f)) for f in fits]
         f, status, why = min(graded, key=lambda t: (order[t[1]], t[0]["in_thread_mm"]))
-        size = f"{f['thread']} x {self.fmt(f['length_mm'])}"
+        size = f"{f['thread']} x {format_length(f['length_mm'], self.cfg.units)}"  # as sold: 5/16 in
         if status == PASS:
             msg = (f"{f['hole']}: {size} {'(chosen from stock)' if f['chosen'] else ''} reaches the pole with"
                    f" {self.fmt(f['in_thread_mm'])} in the thread, {self.fmt(f['gap_to_pole_mm'] - f['length_mm'])}"
