@@ -102,7 +102,7 @@ class FastenerRules(RulesBase):
             g, lo, hi = f["gap_to_pole_mm"], f["thread_start_mm"], f["thread_end_mm"]
             fit = [x for x in f["stock_mm"] if x <= g + 1e-9
                    and min(g, hi) - max(g - x, lo) >= self._need_in_thread(f) - 1e-9]
-            hint = (f"use {f['thread']} x {self.fmt(max(fit))} (set_screws.length)" if fit else
+            hint = (f"use {f['thread']} x {format_length(max(fit), self.cfg.units)} (set_screws.length)" if fit else
                     "no stock length fits: a thicker hub, or a set screw position where the hole is longer")
             msg = f"{f['hole']}: {size} {why}; {hint}"
         return RuleResult("set-screw-length", status, f["length_mm"], f["gap_to_pole_mm"], "mm", msg, src)
