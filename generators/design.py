@@ -86,6 +86,7 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = (), plan=None) -> D
     from generators.plan.holes import material_class
     from generators.plan.jig import jig_plans, jig_reason
     from generators.plan.measured_walls import measure_walls
+    from generators.plan.rules.base import named_wall_mm
     from generators.plan.operations import plan_operations
     from generators.plan.rules import evaluate
     from generators.plan.shop import drill_series
@@ -98,7 +99,7 @@ def design(cfg: Config, masts: tuple[str, ...] | list[str] = (), plan=None) -> D
     series = drill_series(cfg)
     mclass = material_class(cfg.hub.material)
     sleeve_plans = tuple((s, sleeve_as_plan(plan, s)) for s in sleeves)
-    walls = tuple(measure_walls(plan))
+    walls = tuple(measure_walls(plan, named_wall_mm(plan.material)))
     checks = evaluate(cfg, plan, sleeves, walls)
     cut_cases = tuple(cut_list(cfg, plan, sleeves))
     jigs = jig_plans(plan, cfg)
@@ -121,6 +122,7 @@ def _plate_design(cfg: Config, masts: tuple[str, ...]) -> Design:
     from generators.plan.plate import plate_plan
     from generators.plan.hard_limits import check_hard_limits
     from generators.plan.measured_walls import measure_walls
+    from generators.plan.rules.base import named_wall_mm
     from generators.plan.plate_rules import plate_checks
     from generators.plan.shop import drill_series
     from generators.plan.tipcap import tip_cap_plan
@@ -128,7 +130,7 @@ def _plate_design(cfg: Config, masts: tuple[str, ...]) -> Design:
     if masts:
         raise UserError("--mast", "a plate hub has no bore for a sleeve", "build a plate without --mast")
     plan, layout = plate_plan(cfg)
-    walls = tuple(measure_walls(plan))
+    walls = tuple(measure_walls(plan, named_wall_mm(plan.material)))
     check_hard_limits(cfg, plan, walls)
     series, mclass = drill_series(cfg), material_class(cfg.hub.material)
     cuts = ()

@@ -164,10 +164,11 @@ def category(a: Hole, b: Hole | None) -> str:
     return "other"
 
 
-def measure_walls(plan: HubPlan) -> list[Wall]:
+def measure_walls(plan: HubPlan, fine_below_mm: float = 0.0) -> list[Wall]:
     """Every wall of the hub: each pair of cuts that do not meet by design, and each cut to
     each face it does not enter; least first. Each is sampled coarsely; the least of each
-    rule's walls, and any within ``2 x COARSE_MM`` of it, are measured again finely."""
+    rule's walls, any within ``2 x COARSE_MM`` of it, and any under ``fine_below_mm`` (the
+    figure under which a rule names every wall) are measured again finely."""
     body = _Body(plan)
     cutters = [Cutter(h) for h in plan.holes]
     boxes = [c.bounds() for c in cutters]
@@ -200,7 +201,7 @@ def measure_walls(plan: HubPlan) -> list[Wall]:
     for w, at, i, other in coarse:
         pair = isinstance(other, int)
         c = category(cutters[i].hole, cutters[other].hole if pair else None)
-        if w < min(REFINE_BELOW_MM, least[c] + 2 * COARSE_MM):
+        if w < min(REFINE_BELOW_MM, max(least[c] + 2 * COARSE_MM, fine_below_mm)):
             if pair:
                 w, at = _refine(cutters[i], i, cutters[other], other, cutters, body, at, w, exposed[other])
             else:

@@ -220,3 +220,19 @@ def test_the_holding_cylinder_never_overstates_a_cuts_distance(name):
         quick = c.sdf_or_box(pts)
         # the same sign as the exact distance wherever either is within the margin of the cut
         assert np.all((quick >= 0) == (exact >= 0)), h.id
+
+
+def test_every_wall_the_hole_wall_rule_names_is_measured_finely():
+    """The hole-wall rule names each wall under its recommended figure (4.5 mm in acetal), so
+    those are refined too, not only the least of the rule: three drilled holes on one line,
+    walls c - r1 - r2 = 1.6 mm and 4.1 mm (plane geometry); coarse sampling alone read the
+    second about 0.04 mm thick."""
+    from generators.design import design
+
+    P = lambda r: [r * math.cos(math.radians(150)), r * math.sin(math.radians(150))]  # noqa: E731
+    data = _with_holes({"id": "A", "face": "top", "at": P(40), "diameter": 6.0},
+                       {"id": "B", "face": "top", "at": P(46.6), "diameter": 4.0},
+                       {"id": "C", "face": "top", "at": P(30.9), "diameter": 4.0})
+    walls = design(parse_config(data)).walls
+    assert _wall(walls, "A", "B") == pytest.approx(1.6, abs=1e-6)
+    assert _wall(walls, "A", "C") == pytest.approx(4.1, abs=1e-6)

@@ -87,6 +87,14 @@ def _grade(value: float, fail_below: float, warn_below: float) -> tuple[str, flo
     return PASS, warn_below
 
 
+def named_wall_mm(material: str) -> float:
+    """Walls under this are named one by one in the hole-wall rule's message (its recommended
+    figure), so each is measured finely, not only the least."""
+    from generators.standards.materials import get_material
+
+    return RECOMMENDED_OVER_MIN * MIN_WALL_MM[get_material(material).material_class]
+
+
 class RulesBase:
     """What every rule group shares: the config, the plan, the material and small helpers."""
 
@@ -95,7 +103,7 @@ class RulesBase:
         from generators.standards.materials import get_material
 
         self.cfg, self.plan, self.sleeve_plans = cfg, plan, tuple(sleeves)
-        self.walls = tuple(measure_walls(plan) if walls is None else walls)
+        self.walls = tuple(measure_walls(plan, named_wall_mm(plan.material)) if walls is None else walls)
         self.far = REFINE_BELOW_MM
         self.mat = get_material(plan.material)
         self.cls = self.mat.material_class
