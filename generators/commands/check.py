@@ -88,7 +88,8 @@ def run(args: argparse.Namespace) -> int:
     checks = d.checks_json
     bad = failed(checks)
     if args.json:
-        json.dump({**checks, "sleeves": [_sleeve_json(s) for s in d.sleeves]}, sys.stdout, indent=2)
+        sleeves = [{k: round(v, 4) if isinstance(v, float) else v for k, v in r.items()} for r in d.checks.sleeves]
+        json.dump({**checks, "sleeves": sleeves}, sys.stdout, indent=2)
         sys.stdout.write("\n")
     else:
         print(f"{cfg.name}: {len(checks['rules'])} rules, {len(bad)} failed, {len(warned(checks))} warned")
@@ -99,10 +100,3 @@ def run(args: argparse.Namespace) -> int:
         print(CAUTION)
     return 1 if bad else 0
 
-
-def _sleeve_json(s) -> dict:
-    """A reducer sleeve as plain data (mm): which mast, its sizes and what holds it."""
-    return {"key": s.key, "mast": s.mast_designation, "mast_od_mm": round(s.mast_od_mm, 4),
-            "od_mm": round(s.od_mm, 4), "id_mm": round(s.id_mm, 4), "wall_mm": round(s.wall_mm, 4),
-            "length_mm": round(s.length_mm, 4), "flange": s.flange is not None, "slit": s.slit is not None,
-            "holes": [h.id for h in s.holes]}

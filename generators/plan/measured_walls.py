@@ -233,13 +233,27 @@ def _apart(box_a, box_b, margin: float = REFINE_BELOW_MM) -> bool:
     return bool(np.linalg.norm(np.maximum(gap, 0.0)) > margin)
 
 
+def _partners(cutters: list[Cutter], i: int) -> list[Cutter]:
+    """The cuts that cut ``i`` meets by design."""
+    return [o for k, o in enumerate(cutters) if k != i and meets_by_design(cutters[i].hole, o.hole)]
+
+
+def _on_part(pts: np.ndarray, partners: list[Cutter], body: _Body) -> np.ndarray:
+    """Which points of a cut's surface are a surface of the part: inside the body and
+    outside every cut it meets by design."""
+    ok = body.inside(pts)
+    for o in partners:
+        ok &= o.sdf_or_box(pts) >= -INSIDE_EPS_MM
+    return ok
+
+
 def _exposed(c: Cutter, i: int, cutters: list[Cutter], body: _Body, step: float, near=None) -> np.ndarray:
     """Surface points of cutter ``i`` that are a surface of the part (optionally only
     within ``near = (point, radius)``)."""
-    partners = [o for j, o in enumerate(cutters) if j != i and meets_by_design(c.hole, o.hole)]
+    partners = _partners(cutters, i)
     pts = np.concatenate([c.surface(step, near), _rims(c, partners, body, step, near)])
     pts = pts[body.inside(pts)]
-    for o in partners:
+    for o in partners:  # one cut at a time: each leaves fewer points for the next
         if len(pts):
             pts = pts[o.sdf_or_box(pts) >= -INSIDE_EPS_MM]
     return pts
@@ -334,8 +348,7 @@ def _polish_to_face(cutters: list[Cutter], a: int, face, body: _Body, p: np.ndar
     """``_polish`` against a flat face: the foot of the point on the face's plane, the
     nearest point of the cut to that foot, and so on, while the foot lies on the face, the
     point is a surface of the part and the wall falls."""
-    ca = cutters[a]
-    pa = [o for k, o in enumerate(cutters) if k != a and meets_by_design(ca.hole, o.hole)]
+    ca, pa = cutters[a], _partners(cutters, a)
     n = np.array(face.normal, dtype=float)
     x = p[None]
     for _ in range(POLISH_STEPS):
@@ -343,7 +356,7 @@ def _polish_to_face(cutters: list[Cutter], a: int, face, body: _Body, p: np.ndar
         if h[0] <= 0 or body.region_distance(face, x)[0] > h[0] + 1e-9:
             break  # outside, or the nearest point of the face is not its foot
         _, x2 = ca.nearest(x + h[0] * n)
-        if not (body.inside(x2)[0] and all(o.sdf_or_box(x2)[0] >= -INSIDE_EPS_MM for o in pa)):
+        if not _on_part(x2, pa, body)[0]:
             break
         d2 = float(body.region_distance(face, x2)[0])
         if d2 >= best - 1e-9:
@@ -358,20 +371,14 @@ def _polish(cutters: list[Cutter], a: int, b: int, body: _Body, p: np.ndarray, b
     and so on, while both are surfaces of the part and the distance falls (samples on a
     curve stand off the least by up to a few microns). Each figure is the distance between
     two points of the part's surface, so never under the true wall."""
-    ca, cb = cutters[a], cutters[b]
-    pa = [o for k, o in enumerate(cutters) if k != a and meets_by_design(ca.hole, o.hole)]
-    pb = [o for k, o in enumerate(cutters) if k != b and meets_by_design(cb.hole, o.hole)]
-
-    def exposed(x: np.ndarray, partners: list[Cutter]) -> bool:
-        return bool(body.inside(x)[0]) and all(o.sdf_or_box(x)[0] >= -INSIDE_EPS_MM for o in partners)
-
+    ca, cb, pa, pb = cutters[a], cutters[b], _partners(cutters, a), _partners(cutters, b)
     x = p[None]
     for _ in range(POLISH_STEPS):
         d, q = cb.nearest(x)
-        if d[0] <= 0 or not exposed(q, pb):
+        if d[0] <= 0 or not _on_part(q, pb, body)[0]:
             break
         _, x2 = ca.nearest(q)
-        if not exposed(x2, pa):
+        if not _on_part(x2, pa, body)[0]:
             break
         dist = float(np.linalg.norm(x2[0] - q[0]))
         if dist >= best - 1e-9:
@@ -390,7 +397,7 @@ def _to_exposed(pts: np.ndarray, j: int, cutters: list[Cutter], body: _Body, clo
     c = cutters[j]
     d = c.bound(pts)
     order = np.argsort(d)
-    partners = [o for k, o in enumerate(cutters) if k != j and meets_by_design(c.hole, o.hole)]
+    partners = _partners(cutters, j)
     best, best_k = np.inf, int(order[0]) if len(order) else 0
     for lo in range(0, len(order), 256):
         idx = order[lo:lo + 256]
@@ -398,9 +405,7 @@ def _to_exposed(pts: np.ndarray, j: int, cutters: list[Cutter], body: _Body, clo
             break
         p = pts[idx]
         dd, q = c.nearest(p)  # q: the nearest point of the shape (used only outside it)
-        ok = body.inside(q) | (dd <= 0)
-        for o in partners:
-            ok &= (o.sdf_or_box(q) >= -INSIDE_EPS_MM) | (dd <= 0)
+        ok = _on_part(q, partners, body) | (dd <= 0)
         dist = np.where(ok, dd, np.inf)
         good = dist[ok].min() if ok.any() else np.inf
         bad = np.nonzero(~ok & (dd < min(best, good)))[0]  # only those that could come nearer

@@ -63,7 +63,9 @@ class PocketSearch:
             th = 2 * math.pi * k / SLOT_DIRECTIONS
             dirs.append(unit(tuple(math.cos(th) * p0[i] + math.sin(th) * q0[i] for i in range(3))))
         best, reason = None, "no slot direction keeps its walls"
-        for need in dict.fromkeys((max(self.wall, self._rule_wall()), self.wall)):
+        from generators.plan.rules.base import rule_wall_mm
+
+        for need in dict.fromkeys((max(self.wall, rule_wall_mm(self.cfg.hub.material)), self.wall)):
             # first a place that keeps the hole-wall rule's minimum to the other cuts, else one
             # that keeps the printed wall (and the rule then says what is thin)
             best, reason = self._place_nut(h, orig, nut, centres, dirs, a, corners, flats, height,
@@ -75,13 +77,6 @@ class PocketSearch:
                             "a thicker or wider hub, a smaller thread, or heat-set inserts"
                             " ([print] insert_hole and insert_depth)")
         return best
-
-    def _rule_wall(self) -> float:
-        """The hole-wall rule's minimum for this material (plan/rules/base.py)."""
-        from generators.plan.rules.base import MIN_WALL_MM
-        from generators.standards.materials import get_material
-
-        return MIN_WALL_MM[get_material(self.cfg.hub.material).material_class]
 
     def _place_nut(self, h, orig, nut, centres, dirs, a, corners, flats, height, holes, pockets, need, reason):
         """The first pocket (middle of the span first, the slot up first) that keeps ``need``

@@ -100,6 +100,12 @@ class SleevePlan:
     def height_mm(self) -> float:
         return self.length_mm + (self.flange.thickness_mm if self.flange else 0.0)
 
+    def record(self) -> dict:
+        """The sleeve as plain data (mm): which mast, its sizes and what holds it."""
+        return {"key": self.key, "mast": self.mast_designation, "mast_od_mm": self.mast_od_mm,
+                "od_mm": self.od_mm, "id_mm": self.id_mm, "wall_mm": self.wall_mm, "length_mm": self.length_mm,
+                "flange": self.flange is not None, "slit": self.slit is not None, "holes": [h.id for h in self.holes]}
+
     @property
     def stem(self) -> str:
         return sleeve_stem(self.mast_od_mm)

@@ -87,12 +87,17 @@ def _grade(value: float, fail_below: float, warn_below: float) -> tuple[str, flo
     return PASS, warn_below
 
 
+def rule_wall_mm(material: str) -> float:
+    """The wall rules' minimum for a hub material (by its class)."""
+    from generators.standards.materials import get_material
+
+    return MIN_WALL_MM[get_material(material).material_class]
+
+
 def named_wall_mm(material: str) -> float:
     """Walls under this are named one by one in the hole-wall rule's message (its recommended
     figure), so each is measured finely, not only the least."""
-    from generators.standards.materials import get_material
-
-    return RECOMMENDED_OVER_MIN * MIN_WALL_MM[get_material(material).material_class]
+    return RECOMMENDED_OVER_MIN * rule_wall_mm(material)
 
 
 class RulesBase:

@@ -125,8 +125,7 @@ class WallRules(RulesBase):
 
     def sleeves(self) -> list[dict]:
         """Reducer sleeve OD, ID and wall per ``[[reducers]]`` entry and ``--mast`` size."""
-        return [{"key": s.key, "mast": s.mast_designation, "mast_od_mm": s.mast_od_mm, "od_mm": s.od_mm,
-                 "id_mm": s.id_mm, "wall_mm": s.wall_mm} for s in self.sleeve_plans]
+        return [s.record() for s in self.sleeve_plans]
 
     def rule_sleeve_wall(self) -> RuleResult:
         sl = self.sleeves()
